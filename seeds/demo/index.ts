@@ -1,0 +1,74 @@
+// The invented demo scenario: the town of Wrenfold and Larkspur Hall Gardens, placed relative to
+// `now` so every screen has fresh data whenever the demo starts. Safe to re-run: it empties first.
+import type { Db } from '../../server/db'
+import { stringStatus, type TypeSpec } from '../../shared/string-status'
+import { rng } from './geo'
+import { seedPeople } from './people'
+import { seedClientsAndTypes, seedPlaces } from './places'
+import { seedCertificates, seedVisits } from './history'
+import { seedReports } from './reports'
+import { typeDefs } from './types'
+
+const tables = [
+  'run_stops', 'runs', 'queue_items', 'photos', 'visits', 'isolation_steps', 'isolations', 'reports', 'certificates',
+  'strings', 'structures', 'lamp_classes', 'string_types', 'circuits', 'supply_points', 'sites', 'clients',
+  'users', 'crews', 'platforms', 'audit_log', 'email_outbox', 'caught_mail', 'settings',
+]
+
+export async function emptyAll(db: Db) {
+  await db.raw('SET FOREIGN_KEY_CHECKS = 0')
+  try {
+    for (const t of tables) await db.raw('TRUNCATE TABLE ??', [t])
+  } finally {
+    await db.raw('SET FOREIGN_KEY_CHECKS = 1')
+  }
+}
+
+export async function seedDemo(db: Db, now: Date) {
+  const r = rng(20261201)
+  await emptyAll(db)
+  const { crewIds, users } = await seedPeople(db)
+  const { clientIds, typeIds } = await seedClientsAndTypes(db, now)
+  const planned = await seedPlaces(db, r, clientIds)
+  const specs = Object.fromEntries(typeDefs.map((t) => [t.code, t as TypeSpec]))
+
+  const rows = []
+  for (const p of planned) {
+    let structureId: number | null = null
+    if (p.structureRef) {
+      ;[structureId] = await db('structures').insert({
+        siteId: p.siteId, kind: p.structureRef.startsWith('COL') ? 'column' : 'anchor', ref: p.structureRef,
+        lat: p.geometry === 'line' && p.line ? p.line[0][1] : p.lat, lng: p.geometry === 'line' && p.line ? p.line[0][0] : p.lng,
+        approvedLoad: p.structureRef.startsWith('COL') ? 'One motif up to 25 kg, 0.6 m² wind area' : 'Catenary wire, 6 kN proof load',
+      })
+    }
+    const spec = specs[p.typeCode]
+    const filament = typeDefs.find((t) => t.code === p.typeCode)!.technology === 'filament'
+    const roll = r.next()
+    const cond = { lampsOut: 0, fuseFailed: false, dark: false, isolated: false }
+    if (roll < 0.16) cond.lampsOut = 1
+    else if (roll < 0.22) cond.lampsOut = filament ? r.int(2, 4) : r.int(2, 6)
+    else if (roll < 0.25 && filament) cond.fuseFailed = true
+    else if (roll < 0.26) cond.isolated = true
+    const { status, replaceNow, result } = stringStatus(spec, cond)
+    rows.push({
+      assetTag: p.assetTag, name: p.name, typeId: typeIds[p.typeCode], siteId: p.siteId, circuitId: p.circuitId,
+      structureId, geometry: p.geometry, lat: p.lat, lng: p.lng, line: p.line ? JSON.stringify(p.line) : null,
+      installedOn: new Date(now.getTime() - (40 + r.int(0, 10)) * 86_400_000).toISOString().slice(0, 10),
+      lampAgeHours: filament ? r.int(0, 600) : r.int(0, 8000), lampsOut: cond.lampsOut, fuseFailed: cond.fuseFailed,
+      dark: !result.lit, isolated: cond.isolated, status, replaceNow, maxRatio: result.maxRatio,
+    })
+  }
+  for (let i = 0; i < rows.length; i += 200) await db('strings').insert(rows.slice(i, i + 200))
+
+  const strings = await db('strings as s').join('stringTypes as t', 't.id', 's.typeId')
+    .select('s.id', 's.lat', 's.lng', 't.technology')
+  const crewRoster = Object.values(crewIds).map((crewId) => ({
+    crewId, userIds: users.filter((u) => u.crewId === crewId).map((u) => u.id),
+  }))
+  const visits = await seedVisits(db, r, now, strings.map((s) => ({ stringId: s.id, lat: s.lat, lng: s.lng, shunted: s.technology === 'filament' })), crewRoster)
+  const safety = users.find((u) => u.role === 'safety')!
+  const certificates = await seedCertificates(db, r, now, safety.id)
+  const reports = await seedReports(db, now)
+  return { strings: rows.length, visits, certificates, reports }
+}

@@ -1,0 +1,55 @@
+// The demo's string types. Ratings are typical of the products crews hang (common practice, no
+// single source); life exponent 13 and Weibull shape 2.8 are the engine's documented defaults.
+export interface TypeDef {
+  code: string
+  name: string
+  technology: 'filament' | 'led'
+  wiring: 'series' | 'parallel'
+  supplyVolts: number
+  ratedLifeHours: number
+  lifeExponent: number
+  weibullShape: number
+  replaceAtRatio: number
+  shuntFailProbability: number
+  lengthM: number
+  classes: { label: string; count: number; ratedVolts: number; ratedAmps: number; shunted: boolean }[]
+}
+
+export const typeDefs: TypeDef[] = [
+  {
+    code: 'CAT-F20',
+    name: 'Cross-street catenary, 19 × 12 V filament + 12 V fuse lamp',
+    technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 1500, lifeExponent: 13,
+    classes: [
+      { label: 'lamp', count: 19, ratedVolts: 12, ratedAmps: 0.5, shunted: true },
+      { label: 'fuse lamp', count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
+    ],
+  },
+  {
+    code: 'FES-F30',
+    name: 'Festoon, 29 × 8 V filament + 8 V fuse lamp',
+    technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 2000, lifeExponent: 13,
+    classes: [
+      { label: 'lamp', count: 29, ratedVolts: 8, ratedAmps: 0.3, shunted: true },
+      { label: 'fuse lamp', count: 1, ratedVolts: 8, ratedAmps: 0.3, shunted: false },
+    ],
+  },
+  {
+    code: 'WRAP-M100',
+    name: 'Tree wrap, 100 × 2.5 V mini lamps',
+    technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 3000, lifeExponent: 13,
+    classes: [{ label: 'mini lamp', count: 100, ratedVolts: 2.5, ratedAmps: 0.17, shunted: true }],
+  },
+  {
+    code: 'MOT-L',
+    name: 'Column motif, LED 230 V',
+    technology: 'led', wiring: 'parallel', supplyVolts: 230, ratedLifeHours: 30000, lifeExponent: 13,
+    classes: [{ label: 'LED module', count: 12, ratedVolts: 230, ratedAmps: 0.01, shunted: false }],
+  },
+  {
+    code: 'CUR-L',
+    name: 'Curtain, LED 24 V',
+    technology: 'led', wiring: 'parallel', supplyVolts: 24, ratedLifeHours: 25000, lifeExponent: 13,
+    classes: [{ label: 'LED drop', count: 40, ratedVolts: 24, ratedAmps: 0.02, shunted: false }],
+  },
+]

@@ -1,0 +1,67 @@
+import express, { Router } from 'express'
+import helmet from 'helmet'
+import compression from 'compression'
+import cookieParser from 'cookie-parser'
+import { pinoHttp } from 'pino-http'
+import { randomUUID } from 'node:crypto'
+import { existsSync } from 'node:fs'
+import { join } from 'node:path'
+import type { AppDeps } from './deps'
+import { authenticate } from './middleware/authenticate'
+import { apiNotFound, errorHandler } from './middleware/error-handler'
+import { mountRoutes } from './route-table'
+import { allRoutes } from './routes/index'
+import { API_PREFIX, buildOpenApi } from './openapi'
+import { tileOrigin } from './services/tiles'
+import { serveClient } from './static'
+import { logger } from './logger'
+
+export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
+  const app = express()
+  app.set('trust proxy', 'loopback')
+  app.disable('x-powered-by')
+  const tiles = tileOrigin(deps.config)
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:', ...(tiles ? [tiles] : [])],
+          'connect-src': ["'self'"],
+          'worker-src': ["'self'", 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  )
+  app.use(compression())
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = (req.headers['x-request-id'] as string) || randomUUID()
+        res.setHeader('x-request-id', id)
+        return id
+      },
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api/') },
+    }),
+  )
+  app.use(cookieParser())
+  app.use(express.json({ limit: '1mb' }))
+
+  const api = Router()
+  api.use(authenticate(deps))
+  const openapi = buildOpenApi(allRoutes)
+  api.get('/openapi.json', (_req, res) => {
+    res.json(openapi)
+  })
+  mountRoutes(api, allRoutes, deps)
+  api.use(apiNotFound)
+  app.use(API_PREFIX, api)
+  app.use('/api', apiNotFound)
+
+  const clientDir = opts.clientDir ?? join(process.cwd(), 'dist')
+  if (existsSync(join(clientDir, 'index.html'))) serveClient(app, clientDir)
+  app.use(errorHandler)
+  return app
+}

@@ -1,0 +1,12 @@
+import type { Db } from './db'
+import type { Config } from './config'
+import type { Mailer } from './mail/mailer'
+
+/** What the app needs from outside: built once by server/index.ts, or by a test. */
+export interface AppDeps {
+  db: Db
+  config: Config
+  jwtSecret: string
+  mailer: Mailer
+  uploadDir: string
+}

@@ -1,0 +1,56 @@
+// Every API route is one row of a table: method, path, who may call it, its zod schemas and a
+// handler. The same rows mount the Express routes and generate the OpenAPI document, so neither
+// can drift from the other.
+import type { Request, Response, RequestHandler, Router } from 'express'
+import type { ZodType } from 'zod'
+import type { Role } from '../shared/roles'
+import { requireRoles } from './middleware/require-role'
+import { validate } from './middleware/validate'
+import type { AppDeps } from './deps'
+
+export type Access = readonly Role[] | 'public'
+
+export interface Ctx<B = any, Q = any, P = any> {
+  req: Request
+  res: Response
+  body: B
+  query: Q
+  params: P
+  user: NonNullable<Request['user']>
+  deps: AppDeps
+}
+
+export interface RouteDef {
+  method: 'get' | 'post' | 'patch' | 'put' | 'delete'
+  path: string
+  access: Access
+  summary: string
+  tag: string
+  body?: ZodType
+  bodyType?: 'json' | 'multipart'
+  query?: ZodType
+  params?: ZodType
+  response?: ZodType
+  /** A response that is not JSON (image, PDF, HTML): its content type for the document. */
+  responseType?: string
+  status?: number
+  before?: (deps: AppDeps) => RequestHandler[]
+  handler: (ctx: Ctx) => Promise<unknown> | unknown
+}
+
+export function mountRoutes(router: Router, defs: RouteDef[], deps: AppDeps): void {
+  for (const def of defs) {
+    const chain: RequestHandler[] = []
+    if (def.access !== 'public') chain.push(requireRoles(def.access))
+    if (def.before) chain.push(...def.before(deps))
+    chain.push(validate(def))
+    chain.push(async (req, res) => {
+      const v = res.locals.valid as { body: unknown; query: unknown; params: unknown }
+      const result = await def.handler({ req, res, ...v, user: req.user!, deps })
+      if (res.headersSent) return
+      if (result === undefined) res.status(def.status ?? 204).end()
+      else res.status(def.status ?? 200).json(result)
+    })
+    router[def.method](def.path, ...chain)
+  }
+}

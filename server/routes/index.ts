@@ -1,0 +1,7 @@
+// Every route table of the API, in one list: mounted by app.ts and documented by openapi.ts.
+import type { RouteDef } from '../route-table'
+import { authRoutes } from './auth'
+import { userRoutes } from './users'
+import { systemRoutes } from './system'
+
+export const allRoutes: RouteDef[] = [...systemRoutes, ...authRoutes, ...userRoutes]

@@ -1,0 +1,24 @@
+import { z } from 'zod'
+import { roleSchema } from './common'
+
+export const healthResponse = z.object({ status: z.enum(['ok', 'degraded']), db: z.enum(['ok', 'down']) })
+export const clientConfig = z.object({
+  appName: z.string(),
+  demoMode: z.boolean(),
+  demoAccounts: z.array(z.object({ email: z.string(), role: roleSchema, name: z.string() })),
+  demoPassword: z.string().nullable(),
+  tiles: z.object({ url: z.string().nullable(), attribution: z.string(), maxZoom: z.number(), local: z.boolean() }),
+  mailOutbox: z.boolean(),
+})
+export const mailList = z.object({
+  items: z.array(z.object({ id: z.number(), to: z.string(), subject: z.string(), createdAt: z.string() })),
+})
+export const mailMessage = z.object({
+  id: z.number(),
+  to: z.string(),
+  from: z.string(),
+  subject: z.string(),
+  text: z.string(),
+  html: z.string().nullable(),
+  createdAt: z.string(),
+})

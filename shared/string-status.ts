@@ -1,0 +1,68 @@
+// Turns a string's recorded condition into the engine's input and our five state marks.
+import type { AssessRequest } from './schemas/engine'
+import { assess } from './engine/assess'
+
+export const statuses = ['lit', 'watch', 'replace', 'dark', 'safe'] as const
+export type StringStatus = (typeof statuses)[number]
+
+export const statusLabel: Record<StringStatus, string> = {
+  lit: 'Lit',
+  watch: 'Watch',
+  replace: 'Replace now',
+  dark: 'Dark',
+  safe: 'Made safe',
+}
+
+export interface TypeSpec {
+  wiring: 'series' | 'parallel'
+  supplyVolts: number
+  lifeExponent: number
+  replaceAtRatio: number
+  classes: { count: number; ratedVolts: number; ratedAmps: number; shunted: boolean }[]
+}
+
+export interface Condition {
+  lampsOut: number
+  fuseFailed: boolean
+  dark: boolean
+  isolated: boolean
+}
+
+/** Lamps out are spread over the shunted classes in order; a failed fuse lamp is the first unshunted lamp. */
+export function engineInput(type: TypeSpec, c: Condition, supplyVolts = type.supplyVolts): AssessRequest {
+  let left = c.lampsOut
+  let fuseLeft = c.fuseFailed ? 1 : 0
+  const anyShunted = type.classes.some((k) => k.shunted)
+  const lamps = type.classes.map((k) => {
+    let failed = 0
+    if (k.shunted || !anyShunted) {
+      failed = Math.min(left, k.count)
+      left -= failed
+    } else if (fuseLeft > 0) {
+      failed = 1
+      fuseLeft = 0
+    }
+    return { count: k.count, ratedVolts: k.ratedVolts, ratedAmps: k.ratedAmps, shunted: k.shunted, failed }
+  })
+  return { supplyVolts, lamps, wiring: type.wiring, lifeExponent: type.lifeExponent, replaceAtRatio: type.replaceAtRatio }
+}
+
+/** Lamps that can be out before the string is counted as failed in our records. */
+export function shuntedLampCount(type: TypeSpec): number {
+  const shunted = type.classes.filter((k) => k.shunted)
+  return (shunted.length ? shunted : type.classes).reduce((s, k) => s + k.count, 0)
+}
+
+export function stringStatus(type: TypeSpec, c: Condition) {
+  const result = assess(engineInput(type, c))
+  const status: StringStatus = c.isolated
+    ? 'safe'
+    : c.dark || !result.lit
+      ? 'dark'
+      : result.replaceNow
+        ? 'replace'
+        : c.lampsOut > 0
+          ? 'watch'
+          : 'lit'
+  return { status, replaceNow: !c.isolated && (c.dark || result.replaceNow), result }
+}

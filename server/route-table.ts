@@ -48,8 +48,10 @@ export function mountRoutes(router: Router, defs: RouteDef[], deps: AppDeps): vo
       const v = res.locals.valid as { body: unknown; query: unknown; params: unknown }
       const result = await def.handler({ req, res, ...v, user: req.user!, deps })
       if (res.headersSent) return
-      if (result === undefined) res.status(def.status ?? 204).end()
-      else res.status(def.status ?? 200).json(result)
+      // A handler may set its own status (e.g. 503 from the health check); otherwise the table's.
+      const status = res.statusCode !== 200 ? res.statusCode : def.status
+      if (result === undefined) res.status(status ?? 204).end()
+      else res.status(status ?? 200).json(result)
     })
     router[def.method](def.path, ...chain)
   }

@@ -38,7 +38,7 @@ export function parseDatabaseUrl(url: string): Knex.MySql2ConnectionConfig {
     timezone: 'Z',
     decimalNumbers: true,
     dateStrings: ['DATE'],
-  } as Knex.MySql2ConnectionConfig
+  } as unknown as Knex.MySql2ConnectionConfig
 }
 
 export function knexConfig(url: string): Knex.Config {

@@ -63,7 +63,7 @@ export async function seedDemo(db: Db, now: Date) {
 
   const strings = await db('strings as s').join('stringTypes as t', 't.id', 's.typeId')
     .select('s.id', 's.lat', 's.lng', 't.technology')
-  const crewRoster = Object.values(crewIds).map((crewId) => ({
+  const crewRoster = (Object.values(crewIds) as number[]).map((crewId) => ({
     crewId, userIds: users.filter((u) => u.crewId === crewId).map((u) => u.id),
   }))
   const visits = await seedVisits(db, r, now, strings.map((s) => ({ stringId: s.id, lat: s.lat, lng: s.lng, shunted: s.technology === 'filament' })), crewRoster)

@@ -20,6 +20,7 @@ export const typeDefs: TypeDef[] = [
     code: 'CAT-F20',
     name: 'Cross-street catenary, 19 × 12 V filament + 12 V fuse lamp',
     technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 1500, lifeExponent: 13,
+    weibullShape: 2.8, replaceAtRatio: 1.05, shuntFailProbability: 0.02, lengthM: 16,
     classes: [
       { label: 'lamp', count: 19, ratedVolts: 12, ratedAmps: 0.5, shunted: true },
       { label: 'fuse lamp', count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
@@ -29,6 +30,7 @@ export const typeDefs: TypeDef[] = [
     code: 'FES-F30',
     name: 'Festoon, 29 × 8 V filament + 8 V fuse lamp',
     technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 2000, lifeExponent: 13,
+    weibullShape: 2.8, replaceAtRatio: 1.05, shuntFailProbability: 0.02, lengthM: 30,
     classes: [
       { label: 'lamp', count: 29, ratedVolts: 8, ratedAmps: 0.3, shunted: true },
       { label: 'fuse lamp', count: 1, ratedVolts: 8, ratedAmps: 0.3, shunted: false },
@@ -38,18 +40,21 @@ export const typeDefs: TypeDef[] = [
     code: 'WRAP-M100',
     name: 'Tree wrap, 100 × 2.5 V mini lamps',
     technology: 'filament', wiring: 'series', supplyVolts: 230, ratedLifeHours: 3000, lifeExponent: 13,
+    weibullShape: 2.8, replaceAtRatio: 1.05, shuntFailProbability: 0.03, lengthM: 20,
     classes: [{ label: 'mini lamp', count: 100, ratedVolts: 2.5, ratedAmps: 0.17, shunted: true }],
   },
   {
     code: 'MOT-L',
     name: 'Column motif, LED 230 V',
     technology: 'led', wiring: 'parallel', supplyVolts: 230, ratedLifeHours: 30000, lifeExponent: 13,
+    weibullShape: 1.5, replaceAtRatio: 1.05, shuntFailProbability: 0, lengthM: 2,
     classes: [{ label: 'LED module', count: 12, ratedVolts: 230, ratedAmps: 0.01, shunted: false }],
   },
   {
     code: 'CUR-L',
     name: 'Curtain, LED 24 V',
     technology: 'led', wiring: 'parallel', supplyVolts: 24, ratedLifeHours: 25000, lifeExponent: 13,
+    weibullShape: 1.5, replaceAtRatio: 1.05, shuntFailProbability: 0, lengthM: 6,
     classes: [{ label: 'LED drop', count: 40, ratedVolts: 24, ratedAmps: 0.02, shunted: false }],
   },
 ]

@@ -1,6 +1,6 @@
 import type { Response } from 'express'
 import jwt from 'jsonwebtoken'
-import { rateLimit } from 'express-rate-limit'
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import { acceptInviteBody, meResponse, sessionResponse, signInBody } from '../../shared/schemas/auth'
 import { roles } from '../../shared/roles'
 import type { RouteDef } from '../route-table'
@@ -37,7 +37,7 @@ const signInLimiter = () =>
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-7',
     legacyHeaders: false,
-    keyGenerator: (req) => `${req.ip}|${String(req.body?.email ?? '').toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
     handler: (_req, _res, next) =>
       next(new HttpError(429, 'rate_limited', 'Too many failed sign-ins. Wait 15 minutes and try again.')),
   })

@@ -3,5 +3,9 @@ import type { RouteDef } from '../route-table'
 import { authRoutes } from './auth'
 import { userRoutes } from './users'
 import { systemRoutes } from './system'
+import { stringRoutes } from './strings'
+import { visitRoutes } from './visits'
+import { photoRoutes } from './photos'
+import { engineRoutes } from './engine'
 
-export const allRoutes: RouteDef[] = [...systemRoutes, ...authRoutes, ...userRoutes]
+export const allRoutes: RouteDef[] = [...systemRoutes, ...authRoutes, ...userRoutes, ...stringRoutes, ...visitRoutes, ...engineRoutes]

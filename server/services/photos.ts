@@ -1,0 +1,123 @@
+// Visit photos: checked, re-encoded without metadata, stored under random names, listed and served.
+import { randomUUID } from 'node:crypto'
+import { mkdir, rm, writeFile } from 'node:fs/promises'
+import { join, resolve } from 'node:path'
+import type { Response } from 'express'
+import type { Db } from '../db'
+import { badRequest, notFound } from '../errors'
+import type { PhotoItem } from '../../shared/schemas/photos'
+import { checkImage, reencode, type AcceptedMime } from './photos/image'
+import { readPhotoMeta } from './photos/exif'
+import { photoUrls } from './photo-urls'
+
+export interface UploadedFile {
+  buffer: Buffer
+  originalname: string
+}
+
+const columns = ['id', 'width', 'height', 'takenAt', 'lat', 'lng'] as const
+
+function toItem(r: Record<string, unknown>): PhotoItem {
+  const id = Number(r.id)
+  const takenAt = r.takenAt instanceof Date ? r.takenAt.toISOString() : ((r.takenAt as string | null) ?? null)
+  const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
+  return { id, ...photoUrls(id), width: Number(r.width), height: Number(r.height), takenAt, lat: num(r.lat), lng: num(r.lng) }
+}
+
+async function requireVisit(db: Db, visitId: number): Promise<void> {
+  if (!(await db('visits').where({ id: visitId }).first('id'))) throw notFound('Visit')
+}
+
+export async function listPhotos(db: Db, visitId: number): Promise<PhotoItem[]> {
+  await requireVisit(db, visitId)
+  const rows = await db('photos').where({ visitId }).orderBy('id').select(...columns)
+  return rows.map(toItem)
+}
+
+/**
+ * Stores every photo of one upload or none: all are checked before any is decoded, all are
+ * re-encoded before any is written, and a failed write or insert removes the files already written.
+ */
+export async function savePhotos(
+  db: Db,
+  uploadDir: string,
+  visitId: number,
+  userId: number,
+  files: UploadedFile[],
+): Promise<PhotoItem[]> {
+  if (!files.length) throw badRequest('no_photo', 'Attach at least one photo in the form field "photo".')
+  await requireVisit(db, visitId)
+  const mimes: AcceptedMime[] = []
+  for (const f of files) mimes.push(await checkImage(f.buffer, f.originalname || 'photo'))
+
+  const prepared = []
+  for (const [i, f] of files.entries()) {
+    const meta = await readPhotoMeta(f.buffer)
+    const encoded = await reencode(f.buffer, mimes[i], f.originalname || 'photo')
+    prepared.push({ meta, encoded, fileName: `${randomUUID()}.jpg`, thumbName: `${randomUUID()}.jpg` })
+  }
+
+  const dir = resolve(uploadDir)
+  const written: string[] = []
+  try {
+    await mkdir(dir, { recursive: true })
+    for (const p of prepared) {
+      for (const [name, bytes] of [
+        [p.fileName, p.encoded.full],
+        [p.thumbName, p.encoded.thumb],
+      ] as const) {
+        const path = join(dir, name)
+        written.push(path)
+        await writeFile(path, bytes, { flag: 'wx' })
+      }
+    }
+    const ids = await db.transaction(async (trx) => {
+      const out: number[] = []
+      for (const p of prepared) {
+        const [id] = await trx('photos').insert({
+          visitId,
+          fileName: p.fileName,
+          thumbName: p.thumbName,
+          mime: 'image/jpeg',
+          width: p.encoded.width,
+          height: p.encoded.height,
+          bytes: p.encoded.full.length,
+          takenAt: p.meta.takenAt,
+          lat: p.meta.lat,
+          lng: p.meta.lng,
+          userId,
+        })
+        out.push(Number(id))
+      }
+      return out
+    })
+    return prepared.map((p, i) =>
+      toItem({ id: ids[i], width: p.encoded.width, height: p.encoded.height, ...p.meta }),
+    )
+  } catch (err) {
+    await Promise.all(written.map((path) => rm(path, { force: true })))
+    throw err
+  }
+}
+
+/** Sends the stored JPEG (or its thumbnail) of one photo; cached privately since URLs never change. */
+export async function sendPhoto(db: Db, uploadDir: string, id: number, kind: 'file' | 'thumb', res: Response) {
+  const row = await db('photos').where({ id }).first('fileName', 'thumbName')
+  if (!row) throw notFound('Photo')
+  const name = kind === 'file' ? row.fileName : row.thumbName
+  await new Promise<void>((done, fail) => {
+    res.sendFile(
+      name,
+      {
+        root: resolve(uploadDir),
+        cacheControl: false,
+        dotfiles: 'deny',
+        headers: { 'Cache-Control': 'private, max-age=86400', 'Content-Type': 'image/jpeg' },
+      },
+      (err) => {
+        if (!err || res.headersSent) done()
+        else fail((err as NodeJS.ErrnoException).code === 'ENOENT' ? notFound('Photo file') : err)
+      },
+    )
+  })
+}

@@ -1,0 +1,18 @@
+// Switching schedules: burning hours a night from switch-on and switch-off times (HH:mm).
+export function minutesOfDay(hhmm: string): number {
+  const [h, m] = hhmm.split(':').map(Number)
+  return h * 60 + m
+}
+
+/** Hours the lights burn each night; a switch-off past midnight wraps to the next day. */
+export function burnHoursPerDay(switchOn: string, switchOff: string): number {
+  const on = minutesOfDay(switchOn)
+  const off = minutesOfDay(switchOff)
+  const minutes = off > on ? off - on : 24 * 60 - on + off
+  return minutes / 60
+}
+
+export function hhmm(minutes: number): string {
+  const m = ((Math.round(minutes) % 1440) + 1440) % 1440
+  return `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`
+}

@@ -1,0 +1,96 @@
+import { z } from 'zod'
+import { statuses } from '../string-status'
+
+export const statusSchema = z.enum(statuses)
+
+export const bboxQuery = z.object({
+  bbox: z
+    .string()
+    .regex(/^-?\d+(\.\d+)?(,-?\d+(\.\d+)?){3}$/, 'bbox is minLng,minLat,maxLng,maxLat')
+    .transform((s) => s.split(',').map(Number) as [number, number, number, number])
+    .refine(([a, b, c, d]) => a <= c && b <= d && b >= -90 && d <= 90, 'bbox corners are out of order or range')
+    .optional(),
+  q: z.string().trim().max(80).optional(),
+  status: statusSchema.optional(),
+  limit: z.coerce.number().int().min(1).max(50000).default(25000),
+})
+
+export const mapItem = z.object({
+  id: z.number(),
+  assetTag: z.string(),
+  name: z.string(),
+  lat: z.number(),
+  lng: z.number(),
+  status: statusSchema,
+  lampsOut: z.number(),
+  replaceNow: z.boolean(),
+  line: z.array(z.tuple([z.number(), z.number()])).nullable(),
+})
+export const mapList = z.object({ items: z.array(mapItem), truncated: z.boolean() })
+export type MapItem = z.infer<typeof mapItem>
+
+export const tagParam = z.object({ tag: z.string().trim().min(2).max(40) })
+export const tagLookup = z.object({ id: z.number(), assetTag: z.string() })
+
+/** The string page: record, type, place, circuit, certificates, history and the engine's verdict. */
+export const stringDetail = z.object({
+  id: z.number(),
+  assetTag: z.string(),
+  name: z.string(),
+  status: statusSchema,
+  lampsOut: z.number(),
+  fuseFailed: z.boolean(),
+  dark: z.boolean(),
+  isolated: z.boolean(),
+  replaceNow: z.boolean(),
+  lat: z.number(),
+  lng: z.number(),
+  line: z.array(z.tuple([z.number(), z.number()])).nullable(),
+  installedOn: z.string().nullable(),
+  lampAgeHours: z.number(),
+  lastVisitAt: z.string().nullable(),
+  type: z.object({
+    id: z.number(),
+    code: z.string(),
+    name: z.string(),
+    technology: z.enum(['filament', 'led']),
+    wiring: z.enum(['series', 'parallel']),
+    supplyVolts: z.number(),
+    ratedLifeHours: z.number(),
+    lifeExponent: z.number(),
+    weibullShape: z.number(),
+    replaceAtRatio: z.number(),
+    shuntFailProbability: z.number(),
+    classes: z.array(
+      z.object({ label: z.string(), count: z.number(), ratedVolts: z.number(), ratedAmps: z.number(), shunted: z.boolean() }),
+    ),
+  }),
+  site: z.object({ id: z.number(), name: z.string(), clientId: z.number(), clientName: z.string(), accessNote: z.string().nullable() }),
+  schedule: z.object({ switchOn: z.string(), switchOff: z.string(), burnHoursPerDay: z.number() }),
+  circuit: z
+    .object({ id: z.number(), ref: z.string(), breakerAmps: z.number(), breakerCurve: z.string(), rcdMa: z.number().nullable(), supplyPoint: z.string(), supplyPointRef: z.string() })
+    .nullable(),
+  structure: z.object({ id: z.number(), kind: z.string(), ref: z.string(), approvedLoad: z.string().nullable() }).nullable(),
+  certificates: z.array(
+    z.object({ id: z.number(), kind: z.string(), reference: z.string().nullable(), doneOn: z.string(), nextDue: z.string().nullable(), result: z.string() }),
+  ),
+  assessment: z.unknown(),
+  forecast: z.unknown(),
+  forecastDates: z.object({ firstFailure: z.string().nullable(), dark: z.string().nullable() }),
+  visits: z.array(
+    z.object({
+      id: z.number(),
+      visitedAt: z.string(),
+      by: z.string(),
+      failedFound: z.number(),
+      replaced: z.number(),
+      fuseReplaced: z.boolean(),
+      darkOnArrival: z.boolean(),
+      statusAfter: statusSchema,
+      notes: z.string().nullable(),
+      isolationId: z.number().nullable(),
+      photos: z.array(z.object({ id: z.number(), url: z.string(), thumbUrl: z.string() })),
+    }),
+  ),
+})
+export type StringDetail = z.infer<typeof stringDetail>

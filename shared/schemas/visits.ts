@@ -1,0 +1,82 @@
+import { z } from 'zod'
+import { statusSchema } from './strings'
+
+// Safe-isolation steps before work (Electricity at Work Regulations 1989 regs 12–14; HSE HSG85;
+// testers to HSE GS38), then the steps that hand the string back.
+export const isolateSteps = ['identify', 'isolate', 'lock_off', 'prove_tester', 'test_dead', 'reprove_tester'] as const
+export const restoreSteps = ['remove_lock', 're_energise', 'functional_check', 'rcd_test'] as const
+export const isolationSteps = [...isolateSteps, ...restoreSteps] as const
+export type IsolationStep = (typeof isolationSteps)[number]
+
+export const stepLabel: Record<IsolationStep, string> = {
+  identify: 'Identify the circuit',
+  isolate: 'Isolate',
+  lock_off: 'Lock off and post notice',
+  prove_tester: 'Prove the tester',
+  test_dead: 'Test dead (L–N, L–E, N–E)',
+  reprove_tester: 'Re-prove the tester',
+  remove_lock: 'Remove lock (the person who fitted it)',
+  re_energise: 'Re-energise',
+  functional_check: 'Functional check: string lit',
+  rcd_test: 'RCD test button',
+}
+
+export const idempotencyKey = z.string().trim().min(8).max(64).regex(/^[\w-]+$/, 'Use a UUID.')
+
+export const isolationBody = z.object({
+  stringId: z.number().int().positive(),
+  circuitId: z.number().int().positive().nullable().optional(),
+  lockId: z.string().trim().max(60).optional(),
+  testerId: z.string().trim().max(60).optional(),
+  steps: z
+    .array(
+      z.object({
+        step: z.enum(isolationSteps),
+        doneAt: z.iso.datetime({ offset: true }),
+        value: z.string().trim().max(60).optional(),
+        note: z.string().trim().max(255).optional(),
+      }),
+    )
+    .max(isolationSteps.length),
+})
+export type IsolationBody = z.infer<typeof isolationBody>
+
+export const isolationResult = z.object({
+  id: z.number(),
+  state: z.enum(['open', 'isolated', 'restored', 'abandoned']),
+  steps: z.array(z.object({ step: z.enum(isolationSteps), doneAt: z.string() })),
+})
+
+const count = z.number().int().min(0, 'Cannot be negative.').max(10000)
+
+export const visitBody = z
+  .object({
+    stringId: z.number().int().positive(),
+    failedFound: count,
+    replaced: count,
+    fuseReplaced: z.boolean().optional(),
+    darkOnArrival: z.boolean().optional(),
+    leaveMadeSafe: z.boolean().optional(),
+    readings: z
+      .object({
+        supplyVolts: z.number().positive().max(1000).optional(),
+        amps: z.number().min(0).max(200).optional(),
+        coldOhms: z.number().min(0).max(1e7).optional(),
+      })
+      .optional(),
+    notes: z.string().trim().max(2000).optional(),
+    isolationId: z.number().int().positive().optional(),
+    /** The isolation's own idempotency key, for visits queued offline before the isolation had an id. */
+    isolationKey: idempotencyKey.optional(),
+    noIsolationReason: z.string().trim().min(10, 'Say why in at least 10 characters.').max(255).optional(),
+    visitedAt: z.iso.datetime({ offset: true }).optional(),
+    lat: z.number().min(-90).max(90).optional(),
+    lng: z.number().min(-180).max(180).optional(),
+  })
+  .refine((v) => !(v.isolationId && v.isolationKey), { message: 'Give isolationId or isolationKey, not both.', path: ['isolationKey'] })
+export type VisitBody = z.infer<typeof visitBody>
+
+export const visitResult = z.object({
+  id: z.number(),
+  string: z.object({ id: z.number(), lampsOut: z.number(), status: statusSchema, replaceNow: z.boolean() }),
+})

@@ -47,6 +47,8 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
     }),
   )
   app.use(cookieParser())
+  // A 1,000-stop travel matrix is several megabytes of JSON; everything else stays small.
+  app.use(`${API_PREFIX}/routing`, express.json({ limit: '24mb' }))
   app.use(express.json({ limit: '1mb' }))
 
   const api = Router()

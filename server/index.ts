@@ -10,6 +10,7 @@ import { createApp } from './app'
 import { createMailer, createTransport } from './mail/mailer'
 import { startFakeSmtp } from './mail/fake-smtp'
 import { logger } from './logger'
+import { startJobs } from './jobs/schedule'
 
 /** JWT_SECRET, else a secret generated once into .data/ (git-ignored, never committed). */
 export function jwtSecret(config: Config, dataDir = '.data'): string {
@@ -37,9 +38,11 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env) {
   const addr = server.address()
   const port = typeof addr === 'object' && addr ? addr.port : config.PORT
   logger.info({ port }, 'Lampwright is listening')
+  const stopJobs = startJobs(db)
   return {
     port,
     async close() {
+      stopJobs()
       await new Promise((r) => server.close(r))
       server.closeAllConnections()
       await fake?.close()

@@ -8,6 +8,7 @@ import { seedClientsAndTypes, seedPlaces } from './places'
 import { seedCertificates, seedVisits } from './history'
 import { seedReports } from './reports'
 import { typeDefs } from './types'
+import { refreshQueue } from '../../server/jobs/refresh-queue'
 
 const tables = [
   'run_stops', 'runs', 'queue_items', 'photos', 'visits', 'isolation_steps', 'isolations', 'reports', 'certificates',
@@ -70,5 +71,6 @@ export async function seedDemo(db: Db, now: Date) {
   const safety = users.find((u) => u.role === 'safety')!
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)
+  await refreshQueue(db, now)
   return { strings: rows.length, visits, certificates, reports }
 }

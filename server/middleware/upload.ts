@@ -18,7 +18,9 @@ export function uploadError(err: unknown, maxMb: number, maxFiles: number, field
       case 'LIMIT_FILE_COUNT':
         return badRequest('too_many_files', `Send at most ${maxFiles} photos at once.`, { maxFiles })
       case 'LIMIT_UNEXPECTED_FILE':
-        return badRequest('unexpected_field', `Send photos in the form field "${field}".`, { field: err.field })
+        return badRequest('unexpected_field', `Send photos in the form field "${field}".`, {
+          field: err.field,
+        })
       default:
         return badRequest('invalid_upload', `The upload was not accepted (${err.message}).`)
     }
@@ -36,7 +38,13 @@ export function memoryUpload(
   const maxMb = config.UPLOAD_MAX_MB
   const parse = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: Math.floor(maxMb * MB), files: maxFiles, fields: 20, fieldSize: 64 * 1024, parts: maxFiles + 20 },
+    limits: {
+      fileSize: Math.floor(maxMb * MB),
+      files: maxFiles,
+      fields: 20,
+      fieldSize: 64 * 1024,
+      parts: maxFiles + 20,
+    },
   }).array(field, maxFiles)
   return (req, res, next) => {
     parse(req, res, (err?: unknown) => next(err ? uploadError(err, maxMb, maxFiles, field) : undefined))

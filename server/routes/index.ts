@@ -7,5 +7,19 @@ import { stringRoutes } from './strings'
 import { visitRoutes } from './visits'
 import { photoRoutes } from './photos'
 import { engineRoutes } from './engine'
+import { queueRoutes } from './queue'
+import { routingRoutes } from './routing'
+import { runRoutes } from './runs'
 
-export const allRoutes: RouteDef[] = [...systemRoutes, ...authRoutes, ...userRoutes, ...stringRoutes, ...visitRoutes, ...engineRoutes]
+export const allRoutes: RouteDef[] = [
+  ...systemRoutes,
+  ...authRoutes,
+  ...userRoutes,
+  ...stringRoutes,
+  ...visitRoutes,
+  ...photoRoutes,
+  ...engineRoutes,
+  ...queueRoutes,
+  ...routingRoutes,
+  ...runRoutes,
+]

@@ -9,9 +9,16 @@ const cacheNote = 'Served as image/jpeg with Cache-Control: private, max-age=864
 
 export const photoRoutes: RouteDef[] = [
   {
-    method: 'post', path: '/visits/:id/photos', access: fieldRoles, tag: 'field',
+    method: 'post',
+    path: '/visits/:id/photos',
+    access: fieldRoles,
+    tag: 'field',
     summary: 'Attach photos to a visit (multipart field "photo", up to 8; JPEG, PNG or WebP)',
-    params: idParam, body: photoUploadBody, bodyType: 'multipart', response: photoList, status: 201,
+    params: idParam,
+    body: photoUploadBody,
+    bodyType: 'multipart',
+    response: photoList,
+    status: 201,
     before: (deps) => [memoryUpload(deps.config)],
     handler: async ({ req, params, user, deps }) => {
       const files = Array.isArray(req.files) ? req.files : []
@@ -19,18 +26,33 @@ export const photoRoutes: RouteDef[] = [
     },
   },
   {
-    method: 'get', path: '/visits/:id/photos', access: roles, tag: 'field', summary: 'Photos of a visit',
-    params: idParam, response: photoList,
+    method: 'get',
+    path: '/visits/:id/photos',
+    access: roles,
+    tag: 'field',
+    summary: 'Photos of a visit',
+    params: idParam,
+    response: photoList,
     handler: async ({ params, deps }) => ({ items: await listPhotos(deps.db, params.id) }),
   },
   {
-    method: 'get', path: '/photos/:id/file', access: roles, tag: 'field', summary: `A photo (at most 2048 px). ${cacheNote}`,
-    params: idParam, responseType: 'image/jpeg',
+    method: 'get',
+    path: '/photos/:id/file',
+    access: roles,
+    tag: 'field',
+    summary: `A photo (at most 2048 px). ${cacheNote}`,
+    params: idParam,
+    responseType: 'image/jpeg',
     handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'file', res),
   },
   {
-    method: 'get', path: '/photos/:id/thumb', access: roles, tag: 'field', summary: `A photo's thumbnail (320 px). ${cacheNote}`,
-    params: idParam, responseType: 'image/jpeg',
+    method: 'get',
+    path: '/photos/:id/thumb',
+    access: roles,
+    tag: 'field',
+    summary: `A photo's thumbnail (320 px). ${cacheNote}`,
+    params: idParam,
+    responseType: 'image/jpeg',
     handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'thumb', res),
   },
 ]

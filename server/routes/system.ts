@@ -6,6 +6,8 @@ import { HttpError } from '../errors'
 import { demoAccounts, DEMO_PASSWORD } from '../../seeds/demo/accounts'
 import { getMail, listMail } from '../services/mail'
 import { tileSettings } from '../services/tiles'
+import { demoBasemap } from '../services/basemap'
+import { basemap } from '../../shared/schemas/system'
 
 export const systemRoutes: RouteDef[] = [
   {
@@ -34,6 +36,14 @@ export const systemRoutes: RouteDef[] = [
         tiles: tileSettings(deps.config),
         mailOutbox: demo && !deps.config.SMTP_URL,
       }
+    },
+  },
+  {
+    method: 'get', path: '/basemap', access: 'public', tag: 'system', summary: "The demo town's streets as GeoJSON, drawn when no TILE_URL is set",
+    response: basemap,
+    handler: ({ res }) => {
+      res.setHeader('Cache-Control', 'public, max-age=3600')
+      return demoBasemap()
     },
   },
   {

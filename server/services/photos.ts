@@ -6,8 +6,10 @@ import type { Response } from 'express'
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
 import type { PhotoItem } from '../../shared/schemas/photos'
-import { checkImage, reencode, type AcceptedMime } from './photos/image'
-import { readPhotoMeta } from './photos/exif'
+import { checkImage, type AcceptedMime } from './photos/checks'
+import type { Encoded } from './photos/image'
+import { reencodeOffThread } from './photos/reencode-pool'
+import { readPhotoMeta, type PhotoMeta } from './photos/exif'
 import { photoUrls } from './photo-urls'
 
 export interface UploadedFile {
@@ -21,7 +23,15 @@ function toItem(r: Record<string, unknown>): PhotoItem {
   const id = Number(r.id)
   const takenAt = r.takenAt instanceof Date ? r.takenAt.toISOString() : ((r.takenAt as string | null) ?? null)
   const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
-  return { id, ...photoUrls(id), width: Number(r.width), height: Number(r.height), takenAt, lat: num(r.lat), lng: num(r.lng) }
+  return {
+    id,
+    ...photoUrls(id),
+    width: Number(r.width),
+    height: Number(r.height),
+    takenAt,
+    lat: num(r.lat),
+    lng: num(r.lng),
+  }
 }
 
 async function requireVisit(db: Db, visitId: number): Promise<void> {
@@ -30,7 +40,10 @@ async function requireVisit(db: Db, visitId: number): Promise<void> {
 
 export async function listPhotos(db: Db, visitId: number): Promise<PhotoItem[]> {
   await requireVisit(db, visitId)
-  const rows = await db('photos').where({ visitId }).orderBy('id').select(...columns)
+  const rows = await db('photos')
+    .where({ visitId })
+    .orderBy('id')
+    .select(...columns)
   return rows.map(toItem)
 }
 
@@ -50,10 +63,10 @@ export async function savePhotos(
   const mimes: AcceptedMime[] = []
   for (const f of files) mimes.push(await checkImage(f.buffer, f.originalname || 'photo'))
 
-  const prepared = []
+  const prepared: { meta: PhotoMeta; encoded: Encoded; fileName: string; thumbName: string }[] = []
   for (const [i, f] of files.entries()) {
     const meta = await readPhotoMeta(f.buffer)
-    const encoded = await reencode(f.buffer, mimes[i], f.originalname || 'photo')
+    const encoded = await reencodeOffThread(f.buffer, mimes[i], f.originalname || 'photo')
     prepared.push({ meta, encoded, fileName: `${randomUUID()}.jpg`, thumbName: `${randomUUID()}.jpg` })
   }
 
@@ -101,7 +114,13 @@ export async function savePhotos(
 }
 
 /** Sends the stored JPEG (or its thumbnail) of one photo; cached privately since URLs never change. */
-export async function sendPhoto(db: Db, uploadDir: string, id: number, kind: 'file' | 'thumb', res: Response) {
+export async function sendPhoto(
+  db: Db,
+  uploadDir: string,
+  id: number,
+  kind: 'file' | 'thumb',
+  res: Response,
+) {
   const row = await db('photos').where({ id }).first('fileName', 'thumbName')
   if (!row) throw notFound('Photo')
   const name = kind === 'file' ? row.fileName : row.thumbName

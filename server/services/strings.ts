@@ -92,7 +92,8 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
   const photos = visits.length ? await db('photos').whereIn('visitId', visits.map((v) => v.id)).select('id', 'visitId') : []
   const burn = burnHoursPerDay(site.switchOn, site.switchOff)
   const cond = { id: s.id, lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated, lampAgeHours: s.lampAgeHours }
-  const supply = circuit?.supplyVolts ?? type.supplyVolts
+  // The string's own design supply: a 24 V curtain hangs on a 230 V circuit through its driver.
+  const supply = type.supplyVolts
   const assessment = assess(engineInput(type, cond, supply))
   const fc = stringForecast(type, cond, supply, burn, now.toISOString().slice(0, 10))
   return {

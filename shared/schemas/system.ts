@@ -22,3 +22,14 @@ export const mailMessage = z.object({
   html: z.string().nullable(),
   createdAt: z.string(),
 })
+
+export const basemap = z.object({
+  type: z.literal('FeatureCollection'),
+  features: z.array(
+    z.object({
+      type: z.literal('Feature'),
+      properties: z.object({ name: z.string(), kind: z.string(), widthM: z.number() }),
+      geometry: z.object({ type: z.enum(['LineString', 'Polygon']), coordinates: z.array(z.unknown()) }),
+    }),
+  ),
+})

@@ -33,7 +33,14 @@ export async function readPhotoMeta(bytes: Uint8Array): Promise<PhotoMeta> {
     const tags = await exifr.parse(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength), {
       gps: true,
       reviveValues: false,
-      pick: ['DateTimeOriginal', 'OffsetTimeOriginal', 'GPSLatitude', 'GPSLatitudeRef', 'GPSLongitude', 'GPSLongitudeRef'],
+      pick: [
+        'DateTimeOriginal',
+        'OffsetTimeOriginal',
+        'GPSLatitude',
+        'GPSLatitudeRef',
+        'GPSLongitude',
+        'GPSLongitudeRef',
+      ],
     })
     if (!tags) return none
     const lat = coord(tags.latitude, 90)

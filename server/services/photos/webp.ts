@@ -15,7 +15,9 @@ function start(): Promise<void> {
 }
 
 /** RGBA pixels of a WebP image, in the shape Jimp.fromBitmap takes. */
-export async function decodeWebpBitmap(bytes: Uint8Array): Promise<{ data: Buffer; width: number; height: number }> {
+export async function decodeWebpBitmap(
+  bytes: Uint8Array,
+): Promise<{ data: Buffer; width: number; height: number }> {
   ready ??= start().catch((err: unknown) => {
     ready = undefined
     throw err

@@ -1,0 +1,26 @@
+// The demo town's own basemap as GeoJSON: an invented town has no real map tiles, so the client
+// draws these streets, squares, gardens and the river as vector layers (TILE_URL replaces it).
+import { river, streets } from '../../seeds/demo/town'
+import { toLatLng } from '../../seeds/demo/geo'
+
+const ll = ([x, y]: [number, number]) => {
+  const p = toLatLng(x, y)
+  return [p.lng, p.lat]
+}
+
+export function demoBasemap() {
+  const features = streets.map((s) => ({
+    type: 'Feature' as const,
+    properties: { name: s.name, kind: s.kind, widthM: s.widthM },
+    geometry:
+      s.kind === 'street'
+        ? { type: 'LineString' as const, coordinates: s.path.map(ll) }
+        : { type: 'Polygon' as const, coordinates: [s.path.map(ll)] },
+  }))
+  features.push({
+    type: 'Feature',
+    properties: { name: 'River Wren', kind: 'river', widthM: 30 },
+    geometry: { type: 'LineString', coordinates: river.map(ll) },
+  })
+  return { type: 'FeatureCollection' as const, features }
+}

@@ -1,0 +1,61 @@
+// The queue's priority score: three visible parts that add up to at most 100.
+//   risk (0–50): what happens if nobody goes — dark, over-stressed, forecast, hazard;
+//   importance (0–25): the site's importance to the client (1–5);
+//   clock (0–25): how much of the contract response time is used up.
+// The weights are our own judgement (common practice, no source).
+
+interface Row {
+  kind: string
+  severity: string
+  dueBy: Date | string
+  openedAt: Date | string
+  maxRatio?: number | null
+  hazard?: number | boolean | null
+  importance?: number | null
+  summary: string
+}
+
+const clamp = (x: number, lo = 0, hi = 1) => Math.min(hi, Math.max(lo, x))
+
+export function scoreItem(r: Row, now: Date) {
+  const due = new Date(r.dueBy).getTime()
+  const opened = new Date(r.openedAt).getTime()
+  const hoursLeft = Math.round(((due - now.getTime()) / 3_600_000) * 10) / 10
+  const why: string[] = []
+  let risk: number
+  switch (r.kind) {
+    case 'dark':
+      risk = 45
+      why.push('String is dark')
+      break
+    case 'replace_now': {
+      const over = clamp(((r.maxRatio ?? 1.05) - 1.05) / 0.1)
+      risk = 30 + 15 * over
+      why.push(`Lamps at ${Math.round((r.maxRatio ?? 1.05) * 100)} % of rated voltage`)
+      break
+    }
+    case 'forecast_dark':
+      risk = 30
+      why.push('Forecast to go dark within 3 nights')
+      break
+    case 'public_report':
+      risk = r.hazard ? 50 : 25
+      why.push(r.hazard ? 'Reported hazard' : 'Reported by the public')
+      break
+    case 'rcd_failed':
+      risk = 50
+      why.push('RCD failed its test: no additional protection')
+      break
+    default:
+      risk = hoursLeft < 0 ? 35 : 15
+      why.push(hoursLeft < 0 ? 'Certificate overdue' : 'Certificate falls due soon')
+  }
+  const importance = 5 * clamp(r.importance ?? 3, 1, 5)
+  if ((r.importance ?? 0) >= 4) why.push('Important site')
+  const window = Math.max(1, due - opened)
+  const clock = 25 * clamp((now.getTime() - opened) / window)
+  if (hoursLeft < 0) why.push(`Overdue by ${Math.abs(Math.round(hoursLeft))} h`)
+  else if (hoursLeft < 12) why.push(`${Math.round(hoursLeft)} h left on the clock`)
+  const parts = { risk: Math.round(risk * 10) / 10, importance, clock: Math.round(clock * 10) / 10 }
+  return { score: Math.round((parts.risk + parts.importance + parts.clock) * 10) / 10, parts, why, hoursLeft }
+}

@@ -1,0 +1,57 @@
+import { z } from 'zod'
+import { statusSchema } from './strings'
+
+export const queueKinds = ['replace_now', 'dark', 'forecast_dark', 'public_report', 'certificate_due', 'rcd_failed'] as const
+export const queueKindLabel: Record<(typeof queueKinds)[number], string> = {
+  replace_now: 'Replace now',
+  dark: 'Dark string',
+  forecast_dark: 'Forecast to go dark',
+  public_report: 'Public report',
+  certificate_due: 'Certificate due',
+  rcd_failed: 'RCD test failed',
+}
+
+export const queueQuery = z.object({
+  clientId: z.coerce.number().int().positive().optional(),
+  siteId: z.coerce.number().int().positive().optional(),
+  kind: z.enum(queueKinds).optional(),
+  crewId: z.coerce.number().int().positive().optional(),
+  state: z.enum(['open', 'snoozed', 'closed', 'all']).default('open'),
+})
+
+export const scoreParts = z.object({ risk: z.number(), importance: z.number(), clock: z.number() })
+
+export const queueItem = z.object({
+  id: z.number(),
+  kind: z.enum(queueKinds),
+  severity: z.enum(['emergency', 'standard']),
+  state: z.enum(['open', 'snoozed', 'closed', 'merged']),
+  summary: z.string(),
+  openedAt: z.string(),
+  dueBy: z.string(),
+  hoursLeft: z.number(),
+  overdue: z.boolean(),
+  score: z.number(),
+  scoreParts: scoreParts,
+  why: z.array(z.string()),
+  snoozedUntil: z.string().nullable(),
+  snoozeReason: z.string().nullable(),
+  mergedCount: z.number(),
+  string: z.object({ id: z.number(), assetTag: z.string(), name: z.string(), status: statusSchema, lampsOut: z.number() }).nullable(),
+  site: z.object({ id: z.number(), name: z.string(), accessFrom: z.string().nullable(), accessTo: z.string().nullable() }).nullable(),
+  client: z.object({ id: z.number(), name: z.string() }).nullable(),
+  lat: z.number().nullable(),
+  lng: z.number().nullable(),
+  reportRef: z.string().nullable(),
+  plannedCrewId: z.number().nullable(),
+})
+export type QueueItem = z.infer<typeof queueItem>
+export const queueList = z.object({ items: z.array(queueItem), refreshedAt: z.string() })
+
+export const snoozeBody = z.object({
+  until: z.iso.datetime({ offset: true }),
+  reason: z.string().trim().min(3, 'Give a reason.').max(255),
+})
+export const mergeBody = z.object({ into: z.number().int().positive(), ids: z.array(z.number().int().positive()).min(1).max(50) })
+export const closeBody = z.object({ reason: z.string().trim().min(3).max(255) })
+export const refreshResult = z.object({ opened: z.number(), open: z.number() })

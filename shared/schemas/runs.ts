@@ -1,0 +1,86 @@
+import { z } from 'zod'
+import { hhmm } from './common'
+import { queueKinds } from './queue'
+
+export const planBody = z.object({
+  date: z.iso.date(),
+  crewIds: z.array(z.number().int().positive()).min(1).max(20),
+  itemIds: z.array(z.number().int().positive()).min(1).max(300),
+  /** stops the supervisor fixed on a crew, in order */
+  pins: z.array(z.object({ itemId: z.number().int().positive(), crewId: z.number().int().positive(), index: z.number().int().min(0) })).default([]),
+  speedKmh: z.number().min(3).max(90).optional(),
+  detourFactor: z.number().min(1).max(3).optional(),
+})
+export type PlanBody = z.infer<typeof planBody>
+
+export const runStop = z.object({
+  itemId: z.number().nullable(),
+  kind: z.enum(queueKinds).nullable(),
+  summary: z.string(),
+  stringId: z.number().nullable(),
+  assetTag: z.string().nullable(),
+  siteName: z.string().nullable(),
+  lat: z.number(),
+  lng: z.number(),
+  arrive: hhmm,
+  start: hhmm,
+  depart: hhmm,
+  travelMinutes: z.number(),
+  serviceMinutes: z.number(),
+  pinned: z.boolean(),
+  window: z.object({ from: z.string(), to: z.string() }).nullable(),
+  doneAt: z.string().nullable(),
+})
+export type RunStop = z.infer<typeof runStop>
+
+export const crewRun = z.object({
+  id: z.number().nullable(),
+  crewId: z.number(),
+  crewName: z.string(),
+  date: z.string(),
+  state: z.enum(['proposal', 'draft', 'published']),
+  version: z.number(),
+  publishedAt: z.string().nullable(),
+  depot: z.object({ name: z.string(), lat: z.number(), lng: z.number() }),
+  shiftStart: z.string(),
+  shiftEnd: z.string(),
+  platform: z.string().nullable(),
+  stops: z.array(runStop),
+  returnAt: z.string(),
+  totalTravelMinutes: z.number(),
+  totalServiceMinutes: z.number(),
+})
+export type CrewRun = z.infer<typeof crewRun>
+
+export const planResult = z.object({
+  date: z.string(),
+  runs: z.array(crewRun),
+  unassigned: z.array(z.object({ itemId: z.number(), summary: z.string(), reason: z.string(), message: z.string() })),
+})
+export type PlanResultView = z.infer<typeof planResult>
+
+export const publishBody = z.object({
+  date: z.iso.date(),
+  runs: z.array(z.object({ crewId: z.number().int().positive(), itemIds: z.array(z.number().int().positive()).max(200) })).min(1).max(20),
+  speedKmh: z.number().min(3).max(90).optional(),
+  detourFactor: z.number().min(1).max(3).optional(),
+})
+export const runsQuery = z.object({ date: z.iso.date().optional() })
+export const runsList = z.object({ date: z.string(), runs: z.array(crewRun) })
+export const myRun = z.object({ date: z.string(), run: crewRun.nullable() })
+
+export const crewList = z.object({
+  items: z.array(
+    z.object({
+      id: z.number(),
+      name: z.string(),
+      depotName: z.string(),
+      depotLat: z.number(),
+      depotLng: z.number(),
+      shiftStart: z.string(),
+      shiftEnd: z.string(),
+      platform: z.object({ id: z.number(), name: z.string(), assetTag: z.string(), workingHeightM: z.number() }).nullable(),
+      members: z.array(z.object({ id: z.number(), name: z.string(), email: z.string() })),
+    }),
+  ),
+})

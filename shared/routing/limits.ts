@@ -1,0 +1,32 @@
+/** Largest tour request accepted with a travel matrix (the server answers 413 beyond). */
+export const MAX_STOPS_WITH_MATRIX = 1000
+
+/** Largest tour request accepted with coordinates only (the server answers 413 beyond). */
+export const MAX_STOPS_WITH_COORDINATES = 5000
+
+/** Largest day plan accepted (a depot's crews and a day's work); the server answers 413 beyond. */
+export const MAX_PLAN_CREWS = 50
+export const MAX_PLAN_ITEMS = 500
+
+/** Default search budget for `solveTour`; small instances stop earlier once the search stalls. */
+export const DEFAULT_TIME_LIMIT_MS = 1000
+
+/** Upper bound a caller may ask for, so one request cannot hold a server worker for long. */
+export const MAX_TIME_LIMIT_MS = 30000
+
+/** Mean Earth radius R1 = 6371008.8 m (IUGG; H. Moritz, "Geodetic Reference System 1980"). */
+export const EARTH_RADIUS_M = 6371008.8
+
+/** True when a tour request is over the stop limits (the server answers 413 rather than 400);
+ * cheap enough to call before full validation of a large body. */
+export function tourRequestTooLarge(body: { stops?: unknown; matrix?: unknown }): boolean {
+  const count = Array.isArray(body.stops) ? body.stops.length : 0
+  return count > (body.matrix === undefined ? MAX_STOPS_WITH_COORDINATES : MAX_STOPS_WITH_MATRIX)
+}
+
+/** True when a day-plan request is over the crew or item limit (413 rather than 400). */
+export function planRequestTooLarge(body: { crews?: unknown; items?: unknown }): boolean {
+  const crews = Array.isArray(body.crews) ? body.crews.length : 0
+  const items = Array.isArray(body.items) ? body.items.length : 0
+  return crews > MAX_PLAN_CREWS || items > MAX_PLAN_ITEMS
+}

@@ -1,0 +1,16 @@
+// The string engine: pure computations shared by the client (instant preview, offline) and the
+// server (authoritative). See README.md for sources and defaults.
+export * from './defaults'
+export * from './lamp-laws'
+export * from './string-condition'
+export { assess } from './assess'
+export { assessReasons, lifePhrase, percent } from './reasons'
+export { forecast } from './forecast'
+export { expectedTimeToKthFailure, varianceTimeToKthFailure } from './cascade'
+export { burningHoursToDate, burningHoursToDates } from './calendar'
+export { createRandom, maxOfUnitExponentials, unitExponential, type Random } from './random'
+export { TUNGSTEN_RESISTIVITY, filamentTemperature, resistanceRatio } from './tungsten'
+export { coldResistance, estimateShorted } from './diagnostics'
+export { stringLoad, type StringLoad } from './string-load'
+export { INSTANTANEOUS_BANDS, assessCircuit, staggerGroups, switchOnVerdict } from './circuit'
+export { energyUse, type EnergyUse } from './energy'

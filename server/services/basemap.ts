@@ -8,8 +8,14 @@ const ll = ([x, y]: [number, number]) => {
   return [p.lng, p.lat]
 }
 
+interface Feature {
+  type: 'Feature'
+  properties: { name: string; kind: string; widthM: number }
+  geometry: { type: 'LineString' | 'Polygon'; coordinates: unknown[] }
+}
+
 export function demoBasemap() {
-  const features = streets.map((s) => ({
+  const features: Feature[] = streets.map((s) => ({
     type: 'Feature' as const,
     properties: { name: s.name, kind: s.kind, widthM: s.widthM },
     geometry:

@@ -65,5 +65,6 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const t of ['structures', 'circuits', 'supply_points', 'sites', 'clients']) await knex.schema.dropTable(t)
+  for (const t of ['structures', 'circuits', 'supply_points', 'sites', 'clients'])
+    await knex.schema.dropTable(t)
 }

@@ -14,7 +14,9 @@ export async function up(knex: Knex): Promise<void> {
     t.decimal('lng', 9, 6)
     t.string('reporter_name', 120)
     t.string('reporter_email', 190)
-    t.enum('state', ['received', 'in_hand', 'fixed', 'not_ours', 'duplicate']).notNullable().defaultTo('received')
+    t.enum('state', ['received', 'in_hand', 'fixed', 'not_ours', 'duplicate'])
+      .notNullable()
+      .defaultTo('received')
     t.string('public_note', 500)
     t.string('source_hash', 64) // hashed client address for abuse limits, never the address itself
     t.timestamps(true, true)
@@ -108,5 +110,6 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-  for (const t of ['run_stops', 'runs', 'queue_items', 'certificates', 'reports']) await knex.schema.dropTable(t)
+  for (const t of ['run_stops', 'runs', 'queue_items', 'certificates', 'reports'])
+    await knex.schema.dropTable(t)
 }

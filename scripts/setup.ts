@@ -13,14 +13,28 @@ export interface Database {
 }
 
 /** DATABASE_URL when set; otherwise a private MariaDB in `dir` on 127.0.0.1:`port`. */
-export async function openDatabase(opts: { dir: string; port: number; name: string; fresh?: boolean }): Promise<Database> {
-  if (process.env.DATABASE_URL) return { url: process.env.DATABASE_URL, startedHere: false, stop: async () => {} }
-  const db: PrivateDb = await startPrivateDb({ dir: opts.dir, port: opts.port, database: opts.name, fresh: opts.fresh })
+export async function openDatabase(opts: {
+  dir: string
+  port: number
+  name: string
+  fresh?: boolean
+}): Promise<Database> {
+  if (process.env.DATABASE_URL)
+    return { url: process.env.DATABASE_URL, startedHere: false, stop: async () => {} }
+  const db: PrivateDb = await startPrivateDb({
+    dir: opts.dir,
+    port: opts.port,
+    database: opts.name,
+    fresh: opts.fresh,
+  })
   return db
 }
 
 /** Runs pending migrations; loads the demo town when the database has no strings (or when forced). */
-export async function prepareDatabase(url: string, opts: { seed: 'if-empty' | 'always' | 'never' }): Promise<void> {
+export async function prepareDatabase(
+  url: string,
+  opts: { seed: 'if-empty' | 'always' | 'never' },
+): Promise<void> {
   const db = createDb(url)
   try {
     const [, pending] = await db.migrate.latest()

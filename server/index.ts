@@ -25,7 +25,8 @@ export function jwtSecret(config: Config, dataDir = '.data'): string {
 
 export async function startServer(env: NodeJS.ProcessEnv = process.env) {
   const config = loadConfig(env)
-  if (!config.DATABASE_URL) throw new Error('DATABASE_URL is not set (npm start sets it for the private database).')
+  if (!config.DATABASE_URL)
+    throw new Error('DATABASE_URL is not set (npm start sets it for the private database).')
   const db = createDb(config.DATABASE_URL)
   const fake = config.SMTP_URL ? null : await startFakeSmtp(db, config.SMTP_FAKE_PORT)
   const mailer = createMailer(db, createTransport(config.SMTP_URL, fake?.port ?? 0), config.MAIL_FROM)

@@ -12,14 +12,25 @@ export const openApiPath = (path: string) => API_PREFIX + path.replace(/:([A-Za-
 
 export function buildOpenApi(defs: RouteDef[]) {
   const registry = new OpenAPIRegistry()
-  registry.registerComponent('securitySchemes', 'bearer', { type: 'http', scheme: 'bearer', bearerFormat: 'JWT' })
-  registry.registerComponent('securitySchemes', 'cookie', { type: 'apiKey', in: 'cookie', name: 'lw_session' })
+  registry.registerComponent('securitySchemes', 'bearer', {
+    type: 'http',
+    scheme: 'bearer',
+    bearerFormat: 'JWT',
+  })
+  registry.registerComponent('securitySchemes', 'cookie', {
+    type: 'apiKey',
+    in: 'cookie',
+    name: 'lw_session',
+  })
   const errorBody = { description: 'Error', content: { 'application/json': { schema: errorSchema } } }
   for (const d of defs) {
     const ok = d.status ?? (d.response || d.responseType ? 200 : 204)
     const responses: Record<string, unknown> = {
       [ok]: d.responseType
-        ? { description: 'OK', content: { [d.responseType]: { schema: { type: 'string', format: 'binary' } } } }
+        ? {
+            description: 'OK',
+            content: { [d.responseType]: { schema: { type: 'string', format: 'binary' } } },
+          }
         : d.response
           ? { description: 'OK', content: { 'application/json': { schema: d.response } } }
           : { description: 'No content' },
@@ -37,7 +48,11 @@ export function buildOpenApi(defs: RouteDef[]) {
         params: d.params as never,
         query: d.query as never,
         body: body
-          ? { content: { [d.bodyType === 'multipart' ? 'multipart/form-data' : 'application/json']: { schema: body } } }
+          ? {
+              content: {
+                [d.bodyType === 'multipart' ? 'multipart/form-data' : 'application/json']: { schema: body },
+              },
+            }
           : undefined,
       },
       responses: responses as never,
@@ -49,7 +64,8 @@ export function buildOpenApi(defs: RouteDef[]) {
     info: {
       title: 'Lampwright API',
       version: '1.0.0',
-      description: 'Field maintenance and fault log for festive lighting. Errors: { error: { code, message, details? } }.',
+      description:
+        'Field maintenance and fault log for festive lighting. Errors: { error: { code, message, details? } }.',
     },
     servers: [{ url: '/' }],
   })

@@ -2,7 +2,7 @@
 // handler. The same rows mount the Express routes and generate the OpenAPI document, so neither
 // can drift from the other.
 import type { Request, Response, RequestHandler, Router } from 'express'
-import type { ZodType } from 'zod'
+import type { z, ZodType } from 'zod'
 import type { Role } from '../shared/roles'
 import { requireRoles } from './middleware/require-role'
 import { validate } from './middleware/validate'
@@ -10,7 +10,7 @@ import type { AppDeps } from './deps'
 
 export type Access = readonly Role[] | 'public'
 
-export interface Ctx<B = any, Q = any, P = any> {
+export interface Ctx<B = unknown, Q = unknown, P = unknown> {
   req: Request
   res: Response
   body: B
@@ -36,6 +36,24 @@ export interface RouteDef {
   status?: number
   before?: (deps: AppDeps) => RequestHandler[]
   handler: (ctx: Ctx) => Promise<unknown> | unknown
+}
+
+type Out<S> = S extends ZodType ? z.output<S> : undefined
+
+type RouteSpec<B, Q, P> = Omit<RouteDef, 'handler' | 'body' | 'query' | 'params'> & {
+  body?: B
+  query?: Q
+  params?: P
+  handler: (ctx: Ctx<Out<B>, Out<Q>, Out<P>>) => Promise<unknown> | unknown
+}
+
+/** One row of a route table, with the handler's body, query and params typed from its zod schemas. */
+export function defineRoute<
+  B extends ZodType | undefined = undefined,
+  Q extends ZodType | undefined = undefined,
+  P extends ZodType | undefined = undefined,
+>(spec: RouteSpec<B, Q, P>): RouteDef {
+  return spec as unknown as RouteDef
 }
 
 export function mountRoutes(router: Router, defs: RouteDef[], deps: AppDeps): void {

@@ -44,7 +44,13 @@ export function engineInput(type: TypeSpec, c: Condition, supplyVolts = type.sup
     }
     return { count: k.count, ratedVolts: k.ratedVolts, ratedAmps: k.ratedAmps, shunted: k.shunted, failed }
   })
-  return { supplyVolts, lamps, wiring: type.wiring, lifeExponent: type.lifeExponent, replaceAtRatio: type.replaceAtRatio }
+  return {
+    supplyVolts,
+    lamps,
+    wiring: type.wiring,
+    lifeExponent: type.lifeExponent,
+    replaceAtRatio: type.replaceAtRatio,
+  }
 }
 
 /** Lamps that can be out before the string is counted as failed in our records. */

@@ -5,7 +5,10 @@ const benches = ['scripts/bench/forecast.ts', 'scripts/bench/routing.ts', 'scrip
 let failed = false
 for (const b of benches) {
   console.log(`\n## ${b}\n`)
-  const r = spawnSync('node', ['--import', 'tsx', b], { stdio: 'inherit', env: { ...process.env, LOG_LEVEL: 'silent' } })
+  const r = spawnSync('node', ['--import', 'tsx', b], {
+    stdio: 'inherit',
+    env: { ...process.env, LOG_LEVEL: 'silent' },
+  })
   if (r.status !== 0) failed = true
 }
 process.exit(failed ? 1 : 0)

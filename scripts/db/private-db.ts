@@ -28,17 +28,25 @@ function bin(name: string): string {
 }
 
 function admin(sock: string, args: string[]): string {
-  return execFileSync(bin('mariadb'), ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', ...args], {
-    encoding: 'utf8',
-    stdio: ['ignore', 'pipe', 'pipe'],
-  })
+  return execFileSync(
+    bin('mariadb'),
+    ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', ...args],
+    {
+      encoding: 'utf8',
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  )
 }
 
 function ping(sock: string): boolean {
   try {
-    execFileSync(bin('mariadb-admin'), ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', 'ping'], {
-      stdio: 'ignore',
-    })
+    execFileSync(
+      bin('mariadb-admin'),
+      ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', 'ping'],
+      {
+        stdio: 'ignore',
+      },
+    )
     return true
   } catch {
     return false
@@ -131,9 +139,13 @@ export async function startPrivateDb(opts: Options): Promise<PrivateDb> {
 async function stopBySocket(sock: string, pidFile: string): Promise<void> {
   if (!ping(sock)) return
   try {
-    execFileSync(bin('mariadb-admin'), ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', 'shutdown'], {
-      stdio: 'ignore',
-    })
+    execFileSync(
+      bin('mariadb-admin'),
+      ['--no-defaults', '--protocol=socket', `--socket=${sock}`, '-uroot', 'shutdown'],
+      {
+        stdio: 'ignore',
+      },
+    )
   } catch {
     // already going down
   }

@@ -16,13 +16,22 @@ interface VisitPlan {
 }
 
 /** A season of visits so far: patrol finds, relamps under isolation, a few inspections. */
-export async function seedVisits(db: Db, r: Rng, now: Date, strings: VisitPlan[], crews: { crewId: number; userIds: number[] }[]) {
+export async function seedVisits(
+  db: Db,
+  r: Rng,
+  now: Date,
+  strings: VisitPlan[],
+  crews: { crewId: number; userIds: number[] }[],
+) {
   const seasonStart = now.getTime() - 12 * D
   let visits = 0
   const lastVisit = new Map<number, number>()
   for (const s of strings) {
     const count = r.chance(0.55) ? r.int(1, 3) : 0
-    const times = Array.from({ length: count }, () => seasonStart + r.next() * (now.getTime() - seasonStart - 3 * H)).sort()
+    const times = Array.from(
+      { length: count },
+      () => seasonStart + r.next() * (now.getTime() - seasonStart - 3 * H),
+    ).sort()
     for (const t0 of times) {
       const crew = r.pick(crews)
       const userId = r.pick(crew.userIds)
@@ -33,28 +42,59 @@ export async function seedVisits(db: Db, r: Rng, now: Date, strings: VisitPlan[]
       if (relamp) {
         const key = `seed-iso-${s.stringId}-${t0}`
         ;[isolationId] = await db('isolations').insert({
-          idempotencyKey: key, stringId: s.stringId, userId, crewId: crew.crewId, lockId: `LK-${r.int(100, 140)}`,
-          testerId: `VT-${r.int(10, 14)}`, state: 'restored', review: r.chance(0.7) ? 'approved' : 'pending',
-          startedAt: at, completedAt: new Date(t0 + 40 * 60_000),
+          idempotencyKey: key,
+          stringId: s.stringId,
+          userId,
+          crewId: crew.crewId,
+          lockId: `LK-${r.int(100, 140)}`,
+          testerId: `VT-${r.int(10, 14)}`,
+          state: 'restored',
+          review: r.chance(0.7) ? 'approved' : 'pending',
+          startedAt: at,
+          completedAt: new Date(t0 + 40 * 60_000),
         })
         const steps = [...stepsOn, ...stepsOff].map((step, i) => ({
-          isolationId, step, userId, doneAt: new Date(t0 + (i < 6 ? i : 20 + i) * 60_000 + r.int(0, 50) * 1000),
+          isolationId,
+          step,
+          userId,
+          doneAt: new Date(t0 + (i < 6 ? i : 20 + i) * 60_000 + r.int(0, 50) * 1000),
           value: step === 'rcd_test' ? `${r.int(14, 28)} ms` : null,
         }))
         await db('isolationSteps').insert(steps)
       }
       await db('visits').insert({
-        idempotencyKey: `seed-visit-${s.stringId}-${t0}`, stringId: s.stringId, userId, crewId: crew.crewId, isolationId,
-        visitedAt: new Date(t0 + 10 * 60_000), failedFound: found, replaced: found, fuseReplaced: false,
-        darkOnArrival: false, lampsOutBefore: found, lampsOutAfter: 0, statusAfter: 'lit',
-        notes: relamp ? r.pick(['Relamped from platform.', 'Relamped; sockets checked.', 'Lamps replaced, string tested.']) : 'Patrol check: all lit.',
-        lat: s.lat, lng: s.lng, supplyVolts: relamp && r.chance(0.5) ? 228 + r.int(0, 8) : null,
+        idempotencyKey: `seed-visit-${s.stringId}-${t0}`,
+        stringId: s.stringId,
+        userId,
+        crewId: crew.crewId,
+        isolationId,
+        visitedAt: new Date(t0 + 10 * 60_000),
+        failedFound: found,
+        replaced: found,
+        fuseReplaced: false,
+        darkOnArrival: false,
+        lampsOutBefore: found,
+        lampsOutAfter: 0,
+        statusAfter: 'lit',
+        notes: relamp
+          ? r.pick([
+              'Relamped from platform.',
+              'Relamped; sockets checked.',
+              'Lamps replaced, string tested.',
+            ])
+          : 'Patrol check: all lit.',
+        lat: s.lat,
+        lng: s.lng,
+        supplyVolts: relamp && r.chance(0.5) ? 228 + r.int(0, 8) : null,
       })
       lastVisit.set(s.stringId, t0 + 10 * 60_000)
       visits++
     }
   }
-  for (const [stringId, t] of lastVisit) await db('strings').where({ id: stringId }).update({ lastVisitAt: new Date(t) })
+  for (const [stringId, t] of lastVisit)
+    await db('strings')
+      .where({ id: stringId })
+      .update({ lastVisitAt: new Date(t) })
   return visits
 }
 
@@ -65,8 +105,17 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
   platforms.forEach((p, i) => {
     // LOLER 1998 Schedule 1: thorough examination at least every 6 months for lifting people.
     const done = t - (i === 0 ? 160 : 178) * D
-    rows.push({ kind: 'platform_exam', subjectType: 'platform', subjectId: p.id, reference: `TE-${p.assetTag}-26B`, doneOn: isoDate(done),
-      nextDue: isoDate(done + 182 * D), result: 'pass', inspector: 'Fellbeck Lifting Inspections', readings: JSON.stringify({ safeWorkingLoadKg: i === 0 ? 320 : 200 }) })
+    rows.push({
+      kind: 'platform_exam',
+      subjectType: 'platform',
+      subjectId: p.id,
+      reference: `TE-${p.assetTag}-26B`,
+      doneOn: isoDate(done),
+      nextDue: isoDate(done + 182 * D),
+      result: 'pass',
+      inspector: 'Fellbeck Lifting Inspections',
+      readings: JSON.stringify({ safeWorkingLoadKg: i === 0 ? 320 : 200 }),
+    })
   })
   const structures = await db('structures').select('id', 'kind', 'ref')
   structures.forEach((s, i) => {
@@ -76,24 +125,49 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
     const dueSoon = i % 61 === 7
     const due = dueSoon ? t + r.int(3, 13) * D : t + r.int(60, 4 * 365) * D
     const done = due - 5 * 365 * D
-    rows.push({ kind: s.kind === 'column' ? 'column_structural' : 'anchor_test', subjectType: 'structure', subjectId: s.id,
-      reference: `ST-${s.ref}`, doneOn: isoDate(done), nextDue: isoDate(due), result: 'pass', inspector: 'Ashlow Structural Testing',
-      readings: s.kind === 'anchor' ? JSON.stringify({ proofLoadKn: 6 }) : null })
+    rows.push({
+      kind: s.kind === 'column' ? 'column_structural' : 'anchor_test',
+      subjectType: 'structure',
+      subjectId: s.id,
+      reference: `ST-${s.ref}`,
+      doneOn: isoDate(done),
+      nextDue: isoDate(due),
+      result: 'pass',
+      inspector: 'Ashlow Structural Testing',
+      readings: s.kind === 'anchor' ? JSON.stringify({ proofLoadKn: 6 }) : null,
+    })
   })
   const circuits = await db('circuits').select('id', 'ref')
   circuits.forEach((c, i) => {
     const failed = i === 3
     const x1 = r.int(16, 30)
     const x5 = failed ? 52 : r.int(9, 18)
-    rows.push({ kind: 'rcd_test', subjectType: 'circuit', subjectId: c.id, reference: `RCD-${c.ref}`, doneOn: isoDate(t - 12 * D),
-      nextDue: isoDate(t + 18 * D), result: failed ? 'fail' : 'pass', inspector: 'Wrenfold Electrical Services',
+    rows.push({
+      kind: 'rcd_test',
+      subjectType: 'circuit',
+      subjectId: c.id,
+      reference: `RCD-${c.ref}`,
+      doneOn: isoDate(t - 12 * D),
+      nextDue: isoDate(t + 18 * D),
+      result: failed ? 'fail' : 'pass',
+      inspector: 'Wrenfold Electrical Services',
       readings: JSON.stringify({ ratedMa: 30, tripMsAt1x: x1, tripMsAt5x: x5 }),
-      notes: failed ? 'Trip time at 5 × IΔn above 40 ms (BS 7671 reg 415.1.1). Replace RCD.' : null })
+      notes: failed ? 'Trip time at 5 × IΔn above 40 ms (BS 7671 reg 415.1.1). Replace RCD.' : null,
+    })
     const mohm = i === 7 ? 0.8 : 20 + r.int(0, 180)
-    rows.push({ kind: 'insulation_test', subjectType: 'circuit', subjectId: c.id, reference: `IR-${c.ref}`, doneOn: isoDate(t - 13 * D),
-      nextDue: isoDate(t + 352 * D), result: mohm < 1 ? 'fail' : 'pass', inspector: 'Wrenfold Electrical Services',
-      readings: JSON.stringify({ testVolts: 500, megohms: mohm }) })
+    rows.push({
+      kind: 'insulation_test',
+      subjectType: 'circuit',
+      subjectId: c.id,
+      reference: `IR-${c.ref}`,
+      doneOn: isoDate(t - 13 * D),
+      nextDue: isoDate(t + 352 * D),
+      result: mohm < 1 ? 'fail' : 'pass',
+      inspector: 'Wrenfold Electrical Services',
+      readings: JSON.stringify({ testVolts: 500, megohms: mohm }),
+    })
   })
-  for (let i = 0; i < rows.length; i += 200) await db('certificates').insert(rows.slice(i, i + 200).map((x) => ({ ...x, createdBy })))
+  for (let i = 0; i < rows.length; i += 200)
+    await db('certificates').insert(rows.slice(i, i + 200).map((x) => ({ ...x, createdBy })))
   return rows.length
 }

@@ -11,9 +11,30 @@ import { typeDefs } from './types'
 import { refreshQueue } from '../../server/jobs/refresh-queue'
 
 const tables = [
-  'run_stops', 'runs', 'queue_items', 'photos', 'visits', 'isolation_steps', 'isolations', 'reports', 'certificates',
-  'strings', 'structures', 'lamp_classes', 'string_types', 'circuits', 'supply_points', 'sites', 'clients',
-  'users', 'crews', 'platforms', 'audit_log', 'email_outbox', 'caught_mail', 'settings',
+  'run_stops',
+  'runs',
+  'queue_items',
+  'photos',
+  'visits',
+  'isolation_steps',
+  'isolations',
+  'reports',
+  'certificates',
+  'strings',
+  'structures',
+  'lamp_classes',
+  'string_types',
+  'circuits',
+  'supply_points',
+  'sites',
+  'clients',
+  'users',
+  'crews',
+  'platforms',
+  'audit_log',
+  'email_outbox',
+  'caught_mail',
+  'settings',
 ]
 
 export async function emptyAll(db: Db) {
@@ -38,9 +59,14 @@ export async function seedDemo(db: Db, now: Date) {
     let structureId: number | null = null
     if (p.structureRef) {
       ;[structureId] = await db('structures').insert({
-        siteId: p.siteId, kind: p.structureRef.startsWith('COL') ? 'column' : 'anchor', ref: p.structureRef,
-        lat: p.geometry === 'line' && p.line ? p.line[0][1] : p.lat, lng: p.geometry === 'line' && p.line ? p.line[0][0] : p.lng,
-        approvedLoad: p.structureRef.startsWith('COL') ? 'One motif up to 25 kg, 0.6 m² wind area' : 'Catenary wire, 6 kN proof load',
+        siteId: p.siteId,
+        kind: p.structureRef.startsWith('COL') ? 'column' : 'anchor',
+        ref: p.structureRef,
+        lat: p.geometry === 'line' && p.line ? p.line[0][1] : p.lat,
+        lng: p.geometry === 'line' && p.line ? p.line[0][0] : p.lng,
+        approvedLoad: p.structureRef.startsWith('COL')
+          ? 'One motif up to 25 kg, 0.6 m² wind area'
+          : 'Catenary wire, 6 kN proof load',
       })
     }
     const spec = specs[p.typeCode]
@@ -53,21 +79,43 @@ export async function seedDemo(db: Db, now: Date) {
     else if (roll < 0.26) cond.isolated = true
     const { status, replaceNow, result } = stringStatus(spec, cond)
     rows.push({
-      assetTag: p.assetTag, name: p.name, typeId: typeIds[p.typeCode], siteId: p.siteId, circuitId: p.circuitId,
-      structureId, geometry: p.geometry, lat: p.lat, lng: p.lng, line: p.line ? JSON.stringify(p.line) : null,
+      assetTag: p.assetTag,
+      name: p.name,
+      typeId: typeIds[p.typeCode],
+      siteId: p.siteId,
+      circuitId: p.circuitId,
+      structureId,
+      geometry: p.geometry,
+      lat: p.lat,
+      lng: p.lng,
+      line: p.line ? JSON.stringify(p.line) : null,
       installedOn: new Date(now.getTime() - (40 + r.int(0, 10)) * 86_400_000).toISOString().slice(0, 10),
-      lampAgeHours: filament ? r.int(0, 600) : r.int(0, 8000), lampsOut: cond.lampsOut, fuseFailed: cond.fuseFailed,
-      dark: !result.lit, isolated: cond.isolated, status, replaceNow, maxRatio: result.maxRatio,
+      lampAgeHours: filament ? r.int(0, 600) : r.int(0, 8000),
+      lampsOut: cond.lampsOut,
+      fuseFailed: cond.fuseFailed,
+      dark: !result.lit,
+      isolated: cond.isolated,
+      status,
+      replaceNow,
+      maxRatio: result.maxRatio,
     })
   }
   for (let i = 0; i < rows.length; i += 200) await db('strings').insert(rows.slice(i, i + 200))
 
-  const strings = await db('strings as s').join('stringTypes as t', 't.id', 's.typeId')
+  const strings = await db('strings as s')
+    .join('stringTypes as t', 't.id', 's.typeId')
     .select('s.id', 's.lat', 's.lng', 't.technology')
   const crewRoster = (Object.values(crewIds) as number[]).map((crewId) => ({
-    crewId, userIds: users.filter((u) => u.crewId === crewId).map((u) => u.id),
+    crewId,
+    userIds: users.filter((u) => u.crewId === crewId).map((u) => u.id),
   }))
-  const visits = await seedVisits(db, r, now, strings.map((s) => ({ stringId: s.id, lat: s.lat, lng: s.lng, shunted: s.technology === 'filament' })), crewRoster)
+  const visits = await seedVisits(
+    db,
+    r,
+    now,
+    strings.map((s) => ({ stringId: s.id, lat: s.lat, lng: s.lng, shunted: s.technology === 'filament' })),
+    crewRoster,
+  )
   const safety = users.find((u) => u.role === 'safety')!
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)

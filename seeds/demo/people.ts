@@ -5,9 +5,27 @@ import { toLatLng } from './geo'
 
 // Invented crews, platforms and people of the demo scenario.
 export const crewDefs = [
-  { name: 'Lantern', depot: 'Wrenfold Depot, Foundry Street', at: [380, -380] as [number, number], shift: ['16:00', '00:00'], platform: 'PL-01' },
-  { name: 'Tallow', depot: 'Wrenfold Depot, Foundry Street', at: [380, -380] as [number, number], shift: ['08:00', '16:00'], platform: 'PL-02' },
-  { name: 'Wick', depot: 'Quay Yard', at: [1050, -380] as [number, number], shift: ['15:00', '23:00'], platform: null },
+  {
+    name: 'Lantern',
+    depot: 'Wrenfold Depot, Foundry Street',
+    at: [380, -380] as [number, number],
+    shift: ['16:00', '00:00'],
+    platform: 'PL-01',
+  },
+  {
+    name: 'Tallow',
+    depot: 'Wrenfold Depot, Foundry Street',
+    at: [380, -380] as [number, number],
+    shift: ['08:00', '16:00'],
+    platform: 'PL-02',
+  },
+  {
+    name: 'Wick',
+    depot: 'Quay Yard',
+    at: [1050, -380] as [number, number],
+    shift: ['15:00', '23:00'],
+    platform: null,
+  },
 ]
 
 const crewMembers: { email: string; name: string; crew: string }[] = [
@@ -20,11 +38,25 @@ const crewMembers: { email: string; name: string; crew: string }[] = [
 
 export async function seedPeople(db: Db) {
   const platforms = [
-    { name: 'Scissor lift 10 m', assetTag: 'PL-01', kind: 'scissor', workingHeightM: 10, safeWorkingLoadKg: 320 },
-    { name: 'Van-mounted boom 14 m', assetTag: 'PL-02', kind: 'vehicle_mounted', workingHeightM: 14, safeWorkingLoadKg: 200 },
+    {
+      name: 'Scissor lift 10 m',
+      assetTag: 'PL-01',
+      kind: 'scissor',
+      workingHeightM: 10,
+      safeWorkingLoadKg: 320,
+    },
+    {
+      name: 'Van-mounted boom 14 m',
+      assetTag: 'PL-02',
+      kind: 'vehicle_mounted',
+      workingHeightM: 14,
+      safeWorkingLoadKg: 200,
+    },
   ]
   await db('platforms').insert(platforms)
-  const platformIds = Object.fromEntries((await db('platforms').select('id', 'assetTag')).map((p) => [p.assetTag, p.id]))
+  const platformIds = Object.fromEntries(
+    (await db('platforms').select('id', 'assetTag')).map((p) => [p.assetTag, p.id]),
+  )
   for (const c of crewDefs) {
     const { lat, lng } = toLatLng(...c.at)
     await db('crews').insert({
@@ -41,7 +73,12 @@ export async function seedPeople(db: Db) {
   // One hash for every demo account keeps the seed fast; cost 10 meets the OWASP minimum.
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10)
   const rows = [
-    ...demoAccounts.map((a) => ({ email: a.email, name: a.name, role: a.role, crewId: a.crew ? crewIds[a.crew] : null })),
+    ...demoAccounts.map((a) => ({
+      email: a.email,
+      name: a.name,
+      role: a.role,
+      crewId: a.crew ? crewIds[a.crew] : null,
+    })),
     ...crewMembers.map((m) => ({ email: m.email, name: m.name, role: 'crew', crewId: crewIds[m.crew] })),
   ]
   await db('users').insert(rows.map((r) => ({ ...r, passwordHash: hash, active: true })))

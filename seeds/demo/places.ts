@@ -16,27 +16,48 @@ export interface SeedString {
   line: [number, number][] | null
 }
 
-const dayOffset = (now: Date, days: number) => new Date(now.getTime() + days * 86_400_000).toISOString().slice(0, 10)
+const dayOffset = (now: Date, days: number) =>
+  new Date(now.getTime() + days * 86_400_000).toISOString().slice(0, 10)
 
 export async function seedClientsAndTypes(db: Db, now: Date) {
   for (const c of Object.values(clientsDef)) {
     await db('clients').insert({
-      name: c.name, kind: c.kind, contactName: c.contactName, contactEmail: c.contactEmail, contractRef: c.contractRef,
-      responseEmergencyHours: c.emergency, responseStandardHours: c.standard, switchOn: c.switchOn, switchOff: c.switchOff,
-      seasonStart: dayOffset(now, -12), seasonEnd: `${now.getUTCMonth() >= 6 ? now.getUTCFullYear() + 1 : now.getUTCFullYear()}-01-06`,
+      name: c.name,
+      kind: c.kind,
+      contactName: c.contactName,
+      contactEmail: c.contactEmail,
+      contractRef: c.contractRef,
+      responseEmergencyHours: c.emergency,
+      responseStandardHours: c.standard,
+      switchOn: c.switchOn,
+      switchOff: c.switchOff,
+      seasonStart: dayOffset(now, -12),
+      seasonEnd: `${now.getUTCMonth() >= 6 ? now.getUTCFullYear() + 1 : now.getUTCFullYear()}-01-06`,
       tariffPerKwh: c.tariff,
     })
   }
   for (const t of typeDefs) {
     const [id] = await db('stringTypes').insert({
-      code: t.code, name: t.name, technology: t.technology, wiring: t.wiring, supplyVolts: t.supplyVolts,
-      ratedLifeHours: t.ratedLifeHours, lifeExponent: t.lifeExponent, weibullShape: t.weibullShape,
-      replaceAtRatio: t.replaceAtRatio, shuntFailProbability: t.shuntFailProbability, lengthM: t.lengthM,
+      code: t.code,
+      name: t.name,
+      technology: t.technology,
+      wiring: t.wiring,
+      supplyVolts: t.supplyVolts,
+      ratedLifeHours: t.ratedLifeHours,
+      lifeExponent: t.lifeExponent,
+      weibullShape: t.weibullShape,
+      replaceAtRatio: t.replaceAtRatio,
+      shuntFailProbability: t.shuntFailProbability,
+      lengthM: t.lengthM,
     })
     await db('lampClasses').insert(t.classes.map((k, i) => ({ ...k, stringTypeId: id, position: i + 1 })))
   }
-  const clientIds = Object.fromEntries((await db('clients').select('id', 'kind')).map((c) => [c.kind === 'venue' ? 'venue' : 'town', c.id]))
-  const typeIds = Object.fromEntries((await db('stringTypes').select('id', 'code')).map((t) => [t.code, t.id]))
+  const clientIds = Object.fromEntries(
+    (await db('clients').select('id', 'kind')).map((c) => [c.kind === 'venue' ? 'venue' : 'town', c.id]),
+  )
+  const typeIds = Object.fromEntries(
+    (await db('stringTypes').select('id', 'code')).map((t) => [t.code, t.id]),
+  )
   return { clientIds, typeIds }
 }
 
@@ -53,14 +74,35 @@ function planStreet(s: StreetDef, r: Rng) {
       const b = toLatLng(p.x + p.dy * half, p.y - p.dx * half)
       const m = toLatLng(p.x, p.y)
       const t = tag()
-      out.push({ assetTag: t, name: `${s.name} catenary ${n}`, typeCode: 'CAT-F20', structureRef: `ANC-${t.slice(3)}`, geometry: 'line', lat: m.lat, lng: m.lng, line: [[a.lng, a.lat], [b.lng, b.lat]] })
+      out.push({
+        assetTag: t,
+        name: `${s.name} catenary ${n}`,
+        typeCode: 'CAT-F20',
+        structureRef: `ANC-${t.slice(3)}`,
+        geometry: 'line',
+        lat: m.lat,
+        lng: m.lng,
+        line: [
+          [a.lng, a.lat],
+          [b.lng, b.lat],
+        ],
+      })
     }
     let side = 1
     for (const p of along(s.path, 60, 15)) {
       side = -side
       const c = toLatLng(p.x - p.dy * half * side, p.y + p.dx * half * side)
       const t = tag()
-      out.push({ assetTag: t, name: `${s.name} column motif ${n}`, typeCode: r.chance(0.85) ? 'MOT-L' : 'CUR-L', structureRef: `COL-${t.slice(3)}`, geometry: 'point', lat: c.lat, lng: c.lng, line: null })
+      out.push({
+        assetTag: t,
+        name: `${s.name} column motif ${n}`,
+        typeCode: r.chance(0.85) ? 'MOT-L' : 'CUR-L',
+        structureRef: `COL-${t.slice(3)}`,
+        geometry: 'point',
+        lat: c.lat,
+        lng: c.lng,
+        line: null,
+      })
     }
   } else {
     for (let i = 0; i < s.path.length - 1; i++) {
@@ -70,7 +112,19 @@ function planStreet(s: StreetDef, r: Rng) {
       for (const half of [0, 1]) {
         const from = half ? mid : a
         const to = half ? b : mid
-        out.push({ assetTag: tag(), name: `${s.name} festoon ${n + 1}`, typeCode: 'FES-F30', structureRef: null, geometry: 'line', lat: (from.lat + to.lat) / 2, lng: (from.lng + to.lng) / 2, line: [[from.lng, from.lat], [to.lng, to.lat]] })
+        out.push({
+          assetTag: tag(),
+          name: `${s.name} festoon ${n + 1}`,
+          typeCode: 'FES-F30',
+          structureRef: null,
+          geometry: 'line',
+          lat: (from.lat + to.lat) / 2,
+          lng: (from.lng + to.lng) / 2,
+          line: [
+            [from.lng, from.lat],
+            [to.lng, to.lat],
+          ],
+        })
       }
     }
     const xs = s.path.map((p) => p[0])
@@ -80,7 +134,16 @@ function planStreet(s: StreetDef, r: Rng) {
       const x = Math.min(...xs) + 8 + r.next() * (Math.max(...xs) - Math.min(...xs) - 16)
       const y = Math.min(...ys) + 8 + r.next() * (Math.max(...ys) - Math.min(...ys) - 16)
       const c = toLatLng(x, y)
-      out.push({ assetTag: tag(), name: `${s.name} tree wrap ${n + 1}`, typeCode: i % 7 === 6 ? 'CUR-L' : 'WRAP-M100', structureRef: null, geometry: 'point', lat: c.lat, lng: c.lng, line: null })
+      out.push({
+        assetTag: tag(),
+        name: `${s.name} tree wrap ${n + 1}`,
+        typeCode: i % 7 === 6 ? 'CUR-L' : 'WRAP-M100',
+        structureRef: null,
+        geometry: 'point',
+        lat: c.lat,
+        lng: c.lng,
+        line: null,
+      })
     }
   }
   return out
@@ -92,8 +155,15 @@ export async function seedPlaces(db: Db, r: Rng, clientIds: Record<string, numbe
     const centre = s.path[Math.floor(s.path.length / 2)]
     const c = toLatLng(...centre)
     const [siteId] = await db('sites').insert({
-      clientId: clientIds[s.client], name: s.name, kind: s.kind, importance: s.importance, lat: c.lat, lng: c.lng,
-      accessFrom: s.access?.from ?? null, accessTo: s.access?.to ?? null, accessNote: s.access?.note ?? null,
+      clientId: clientIds[s.client],
+      name: s.name,
+      kind: s.kind,
+      importance: s.importance,
+      lat: c.lat,
+      lng: c.lng,
+      accessFrom: s.access?.from ?? null,
+      accessTo: s.access?.to ?? null,
+      accessNote: s.access?.note ?? null,
     })
     const planned = planStreet(s, r)
     const pillars = Math.max(1, Math.ceil(planned.length / 40))
@@ -101,18 +171,33 @@ export async function seedPlaces(db: Db, r: Rng, clientIds: Record<string, numbe
     for (let p = 0; p < pillars; p++) {
       const at = planned[Math.floor(((p + 0.5) / pillars) * planned.length)]
       const [spId] = await db('supplyPoints').insert({
-        siteId, ref: `FP-${s.code}-${p + 1}`, name: `${s.name} feeder pillar ${p + 1}`, lat: at.lat, lng: at.lng,
+        siteId,
+        ref: `FP-${s.code}-${p + 1}`,
+        name: `${s.name} feeder pillar ${p + 1}`,
+        lat: at.lat,
+        lng: at.lng,
         controlledBy: s.client === 'venue' ? 'remote' : 'timer',
       })
       for (let k = 0; k < 2; k++) {
         const [cid] = await db('circuits').insert({
-          supplyPointId: spId, ref: `FP-${s.code}-${p + 1}/${k + 1}`, supplyVolts: 230,
-          breakerAmps: k === 0 ? 16 : 20, breakerCurve: k === 0 ? 'B' : 'C', rcdMa: 30, rcdType: 'general',
+          supplyPointId: spId,
+          ref: `FP-${s.code}-${p + 1}/${k + 1}`,
+          supplyVolts: 230,
+          breakerAmps: k === 0 ? 16 : 20,
+          breakerCurve: k === 0 ? 'B' : 'C',
+          rcdMa: 30,
+          rcdType: 'general',
         })
         circuitIds.push(cid)
       }
     }
-    planned.forEach((p, i) => strings.push({ ...p, siteId, circuitId: circuitIds[Math.floor((i / planned.length) * circuitIds.length)] }))
+    planned.forEach((p, i) =>
+      strings.push({
+        ...p,
+        siteId,
+        circuitId: circuitIds[Math.floor((i / planned.length) * circuitIds.length)],
+      }),
+    )
   }
   return strings
 }

@@ -7,22 +7,58 @@ import { loadType, stringForecast } from '../services/strings'
 const JOB_TRIALS = 400
 
 export async function refreshForecasts(db: Db, now = new Date()) {
-  const rows = await db('strings as s').join('sites as si', 'si.id', 's.siteId').join('clients as c', 'c.id', 'si.clientId')
+  const rows = await db('strings as s')
+    .join('sites as si', 'si.id', 's.siteId')
+    .join('clients as c', 'c.id', 'si.clientId')
     .whereNotIn('s.status', ['dark', 'safe'])
-    .select('s.id', 's.assetTag', 's.typeId', 's.status', 's.lampsOut', 's.fuseFailed', 's.dark', 's.isolated', 's.lampAgeHours', 's.siteId',
-      'si.clientId', 'c.switchOn', 'c.switchOff')
+    .select(
+      's.id',
+      's.assetTag',
+      's.typeId',
+      's.status',
+      's.lampsOut',
+      's.fuseFailed',
+      's.dark',
+      's.isolated',
+      's.lampAgeHours',
+      's.siteId',
+      'si.clientId',
+      'c.switchOn',
+      'c.switchOff',
+    )
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
   const today = now.toISOString().slice(0, 10)
-  const out: { id: number; assetTag: string; status: string; siteId: number; clientId: number; pDark72: number }[] = []
+  const out: {
+    id: number
+    assetTag: string
+    status: string
+    siteId: number
+    clientId: number
+    pDark72: number
+  }[] = []
   const updates: { id: number; at: Date | null }[] = []
   for (const r of rows) {
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
     const type = types.get(r.typeId)!
     const burn = burnHoursPerDay(r.switchOn, r.switchOff)
-    const cond = { id: r.id, lampsOut: r.lampsOut, fuseFailed: !!r.fuseFailed, dark: !!r.dark, isolated: !!r.isolated, lampAgeHours: r.lampAgeHours }
+    const cond = {
+      id: r.id,
+      lampsOut: r.lampsOut,
+      fuseFailed: !!r.fuseFailed,
+      dark: !!r.dark,
+      isolated: !!r.isolated,
+      lampAgeHours: r.lampAgeHours,
+    }
     const fc = stringForecast(type, cond, type.supplyVolts, burn, today, JOB_TRIALS)
     const p72 = fc.pDark.find((p) => p.hours === 72)?.p ?? 0
-    out.push({ id: r.id, assetTag: r.assetTag, status: r.status, siteId: r.siteId, clientId: r.clientId, pDark72: p72 })
+    out.push({
+      id: r.id,
+      assetTag: r.assetTag,
+      status: r.status,
+      siteId: r.siteId,
+      clientId: r.clientId,
+      pDark72: p72,
+    })
     const median = fc.dates?.medianDark
     updates.push({ id: r.id, at: median ? new Date(`${median}T${r.switchOn}:00Z`) : null })
   }

@@ -2,7 +2,9 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { HttpError } from '../errors'
 
 export const apiNotFound: RequestHandler = (req, res) => {
-  res.status(404).json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}.` } })
+  res
+    .status(404)
+    .json({ error: { code: 'not_found', message: `No API route ${req.method} ${req.originalUrl}.` } })
 }
 
 /** The one place errors become responses; unknown errors are logged and answered generically. */
@@ -21,5 +23,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return
   }
   req.log?.error({ err }, 'unhandled error')
-  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. It has been logged.' } })
+  res
+    .status(500)
+    .json({ error: { code: 'internal', message: 'Something went wrong on our side. It has been logged.' } })
 }

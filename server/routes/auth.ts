@@ -3,14 +3,20 @@ import jwt from 'jsonwebtoken'
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import { acceptInviteBody, meResponse, sessionResponse, signInBody } from '../../shared/schemas/auth'
 import { roles } from '../../shared/roles'
-import type { RouteDef } from '../route-table'
+import { defineRoute, type RouteDef } from '../route-table'
 import type { AppDeps } from '../deps'
 import { HttpError } from '../errors'
 import { SESSION_COOKIE } from '../middleware/authenticate'
 import { acceptInvite, verifyCredentials } from '../services/users'
 import { audit } from '../services/audit'
 
-type SessionUser = { id: number; name: string; email: string; role: (typeof roles)[number]; crewId: number | null }
+type SessionUser = {
+  id: number
+  name: string
+  email: string
+  role: (typeof roles)[number]
+  crewId: number | null
+}
 
 function startSession(deps: AppDeps, res: Response, user: SessionUser) {
   const hours = deps.config.SESSION_HOURS
@@ -43,30 +49,56 @@ const signInLimiter = () =>
   })
 
 export const authRoutes: RouteDef[] = [
-  {
-    method: 'post', path: '/auth/sign-in', access: 'public', tag: 'auth', summary: 'Sign in with e-mail and password',
-    body: signInBody, response: sessionResponse, before: () => [signInLimiter()],
+  defineRoute({
+    method: 'post',
+    path: '/auth/sign-in',
+    access: 'public',
+    tag: 'auth',
+    summary: 'Sign in with e-mail and password',
+    body: signInBody,
+    response: sessionResponse,
+    before: () => [signInLimiter()],
     handler: async ({ body, res, deps, req }) => {
       const user = await verifyCredentials(deps.db, body.email, body.password)
       if (!user) throw new HttpError(401, 'invalid_credentials', 'E-mail or password is not right.')
-      await audit(deps.db, { userId: user.id, action: 'sign_in', entity: 'user', entityId: user.id, requestId: String(req.id) })
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'sign_in',
+        entity: 'user',
+        entityId: user.id,
+        requestId: String(req.id),
+      })
       return startSession(deps, res, user)
     },
-  },
-  {
-    method: 'get', path: '/auth/me', access: roles, tag: 'auth', summary: 'The signed-in user',
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/auth/me',
+    access: roles,
+    tag: 'auth',
+    summary: 'The signed-in user',
     response: meResponse,
     handler: ({ user }) => ({ user }),
-  },
-  {
-    method: 'post', path: '/auth/sign-out', access: 'public', tag: 'auth', summary: 'End the session',
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/sign-out',
+    access: 'public',
+    tag: 'auth',
+    summary: 'End the session',
     handler: ({ res }) => {
       res.clearCookie(SESSION_COOKIE, { path: '/' })
     },
-  },
-  {
-    method: 'post', path: '/auth/accept-invite', access: 'public', tag: 'auth', summary: 'Set a password from an invitation',
-    body: acceptInviteBody, response: sessionResponse,
-    handler: async ({ body, res, deps }) => startSession(deps, res, await acceptInvite(deps.db, body.token, body.password)),
-  },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/accept-invite',
+    access: 'public',
+    tag: 'auth',
+    summary: 'Set a password from an invitation',
+    body: acceptInviteBody,
+    response: sessionResponse,
+    handler: async ({ body, res, deps }) =>
+      startSession(deps, res, await acceptInvite(deps.db, body.token, body.password)),
+  }),
 ]

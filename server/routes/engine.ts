@@ -1,37 +1,69 @@
 import { roles } from '../../shared/roles'
 import {
-  assessRequestSchema, assessResponseSchema, circuitRequestSchema, circuitResponseSchema, coldResistanceRequestSchema,
-  coldResistanceResponseSchema, estimateShortedRequestSchema, estimateShortedResponseSchema, forecastRequestSchema,
+  assessRequestSchema,
+  assessResponseSchema,
+  circuitRequestSchema,
+  circuitResponseSchema,
+  coldResistanceRequestSchema,
+  coldResistanceResponseSchema,
+  estimateShortedRequestSchema,
+  estimateShortedResponseSchema,
+  forecastRequestSchema,
   forecastResponseSchema,
 } from '../../shared/schemas/engine'
 import { assess, assessCircuit, coldResistance, estimateShorted, forecast } from '../../shared/engine/index'
-import type { RouteDef } from '../route-table'
+import { defineRoute, type RouteDef } from '../route-table'
 
 // The string engine over HTTP: the same pure functions the client runs offline.
 export const engineRoutes: RouteDef[] = [
-  {
-    method: 'post', path: '/engine/assess', access: roles, tag: 'engine', summary: 'Voltage share, stress factors and the replace-now verdict',
-    body: assessRequestSchema, response: assessResponseSchema,
+  defineRoute({
+    method: 'post',
+    path: '/engine/assess',
+    access: roles,
+    tag: 'engine',
+    summary: 'Voltage share, stress factors and the replace-now verdict',
+    body: assessRequestSchema,
+    response: assessResponseSchema,
     handler: ({ body }) => assess(body),
-  },
-  {
-    method: 'post', path: '/engine/forecast', access: roles, tag: 'engine', summary: 'Monte Carlo forecast of the failure cascade',
-    body: forecastRequestSchema, response: forecastResponseSchema,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/engine/forecast',
+    access: roles,
+    tag: 'engine',
+    summary: 'Monte Carlo forecast of the failure cascade',
+    body: forecastRequestSchema,
+    response: forecastResponseSchema,
     handler: ({ body }) => forecast(body),
-  },
-  {
-    method: 'post', path: '/engine/estimate-shorted', access: roles, tag: 'engine', summary: 'Shorted lamps estimated from a clamp-meter reading',
-    body: estimateShortedRequestSchema, response: estimateShortedResponseSchema,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/engine/estimate-shorted',
+    access: roles,
+    tag: 'engine',
+    summary: 'Shorted lamps estimated from a clamp-meter reading',
+    body: estimateShortedRequestSchema,
+    response: estimateShortedResponseSchema,
     handler: ({ body }) => estimateShorted(body),
-  },
-  {
-    method: 'post', path: '/engine/cold-resistance', access: roles, tag: 'engine', summary: 'Expected cold resistance and what a reading points to',
-    body: coldResistanceRequestSchema, response: coldResistanceResponseSchema,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/engine/cold-resistance',
+    access: roles,
+    tag: 'engine',
+    summary: 'Expected cold resistance and what a reading points to',
+    body: coldResistanceRequestSchema,
+    response: coldResistanceResponseSchema,
     handler: ({ body }) => coldResistance(body),
-  },
-  {
-    method: 'post', path: '/engine/circuit', access: roles, tag: 'engine', summary: 'Circuit loading, switch-on peak against the breaker curve, energy',
-    body: circuitRequestSchema, response: circuitResponseSchema,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/engine/circuit',
+    access: roles,
+    tag: 'engine',
+    summary: 'Circuit loading, switch-on peak against the breaker curve, energy',
+    body: circuitRequestSchema,
+    response: circuitResponseSchema,
     handler: ({ body }) => assessCircuit(body),
-  },
+  }),
 ]

@@ -1,14 +1,14 @@
 import { idParam } from '../../shared/schemas/common'
 import { photoList, photoUploadBody } from '../../shared/schemas/photos'
 import { fieldRoles, roles } from '../../shared/roles'
-import type { RouteDef } from '../route-table'
+import { defineRoute, type RouteDef } from '../route-table'
 import { memoryUpload } from '../middleware/upload'
 import { listPhotos, savePhotos, sendPhoto } from '../services/photos'
 
 const cacheNote = 'Served as image/jpeg with Cache-Control: private, max-age=86400.'
 
 export const photoRoutes: RouteDef[] = [
-  {
+  defineRoute({
     method: 'post',
     path: '/visits/:id/photos',
     access: fieldRoles,
@@ -24,8 +24,8 @@ export const photoRoutes: RouteDef[] = [
       const files = Array.isArray(req.files) ? req.files : []
       return { items: await savePhotos(deps.db, deps.uploadDir, params.id, user.id, files) }
     },
-  },
-  {
+  }),
+  defineRoute({
     method: 'get',
     path: '/visits/:id/photos',
     access: roles,
@@ -34,8 +34,8 @@ export const photoRoutes: RouteDef[] = [
     params: idParam,
     response: photoList,
     handler: async ({ params, deps }) => ({ items: await listPhotos(deps.db, params.id) }),
-  },
-  {
+  }),
+  defineRoute({
     method: 'get',
     path: '/photos/:id/file',
     access: roles,
@@ -44,8 +44,8 @@ export const photoRoutes: RouteDef[] = [
     params: idParam,
     responseType: 'image/jpeg',
     handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'file', res),
-  },
-  {
+  }),
+  defineRoute({
     method: 'get',
     path: '/photos/:id/thumb',
     access: roles,
@@ -54,5 +54,5 @@ export const photoRoutes: RouteDef[] = [
     params: idParam,
     responseType: 'image/jpeg',
     handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'thumb', res),
-  },
+  }),
 ]

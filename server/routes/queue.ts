@@ -1,7 +1,14 @@
 import { planners } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
-import { closeBody, mergeBody, queueList, queueQuery, refreshResult, snoozeBody } from '../../shared/schemas/queue'
-import type { RouteDef } from '../route-table'
+import {
+  closeBody,
+  mergeBody,
+  queueList,
+  queueQuery,
+  refreshResult,
+  snoozeBody,
+} from '../../shared/schemas/queue'
+import { defineRoute, type RouteDef } from '../route-table'
 import { closeItem, listQueue, mergeItems, snoozeItem } from '../services/queue'
 import { refreshQueue } from '../jobs/refresh-queue'
 import { audit } from '../services/audit'
@@ -9,38 +16,82 @@ import { audit } from '../services/audit'
 const queueRoles = ['supervisor', 'manager', 'admin'] as const
 
 export const queueRoutes: RouteDef[] = [
-  {
-    method: 'get', path: '/queue', access: queueRoles, tag: 'queue', summary: 'Work queue ranked by priority score, with filters',
-    query: queueQuery, response: queueList,
-    handler: async ({ deps, query }) => ({ items: await listQueue(deps.db, query), refreshedAt: new Date().toISOString() }),
-  },
-  {
-    method: 'post', path: '/queue/refresh', access: planners, tag: 'queue', summary: 'Rebuild the queue from strings, reports and certificates now',
+  defineRoute({
+    method: 'get',
+    path: '/queue',
+    access: queueRoles,
+    tag: 'queue',
+    summary: 'Work queue ranked by priority score, with filters',
+    query: queueQuery,
+    response: queueList,
+    handler: async ({ deps, query }) => ({
+      items: await listQueue(deps.db, query),
+      refreshedAt: new Date().toISOString(),
+    }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/queue/refresh',
+    access: planners,
+    tag: 'queue',
+    summary: 'Rebuild the queue from strings, reports and certificates now',
     response: refreshResult,
     handler: ({ deps }) => refreshQueue(deps.db),
-  },
-  {
-    method: 'post', path: '/queue/:id/snooze', access: planners, tag: 'queue', summary: 'Snooze an item until a time, with a reason',
-    params: idParam, body: snoozeBody,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/queue/:id/snooze',
+    access: planners,
+    tag: 'queue',
+    summary: 'Snooze an item until a time, with a reason',
+    params: idParam,
+    body: snoozeBody,
     handler: async ({ deps, params, body, user }) => {
       await snoozeItem(deps.db, params.id, new Date(body.until), body.reason)
-      await audit(deps.db, { userId: user.id, action: 'snooze', entity: 'queue_item', entityId: params.id, details: body })
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'snooze',
+        entity: 'queue_item',
+        entityId: params.id,
+        details: body,
+      })
     },
-  },
-  {
-    method: 'post', path: '/queue/merge', access: planners, tag: 'queue', summary: 'Merge items into one (duplicates of the same fault)',
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/queue/merge',
+    access: planners,
+    tag: 'queue',
+    summary: 'Merge items into one (duplicates of the same fault)',
     body: mergeBody,
     handler: async ({ deps, body, user }) => {
       await mergeItems(deps.db, body.into, body.ids)
-      await audit(deps.db, { userId: user.id, action: 'merge', entity: 'queue_item', entityId: body.into, details: body })
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'merge',
+        entity: 'queue_item',
+        entityId: body.into,
+        details: body,
+      })
     },
-  },
-  {
-    method: 'post', path: '/queue/:id/close', access: planners, tag: 'queue', summary: 'Close an item without a visit, with a reason',
-    params: idParam, body: closeBody,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/queue/:id/close',
+    access: planners,
+    tag: 'queue',
+    summary: 'Close an item without a visit, with a reason',
+    params: idParam,
+    body: closeBody,
     handler: async ({ deps, params, body, user }) => {
       await closeItem(deps.db, params.id, body.reason)
-      await audit(deps.db, { userId: user.id, action: 'close', entity: 'queue_item', entityId: params.id, details: body })
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'close',
+        entity: 'queue_item',
+        entityId: params.id,
+        details: body,
+      })
     },
-  },
+  }),
 ]

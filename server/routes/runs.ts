@@ -1,6 +1,14 @@
 import { planners } from '../../shared/roles'
-import { crewList, myRun, planBody, planResult, publishBody, runsList, runsQuery } from '../../shared/schemas/runs'
-import type { RouteDef } from '../route-table'
+import {
+  crewList,
+  myRun,
+  planBody,
+  planResult,
+  publishBody,
+  runsList,
+  runsQuery,
+} from '../../shared/schemas/runs'
+import { defineRoute, type RouteDef } from '../route-table'
 import { loadCrews } from '../services/run-items'
 import { listRuns, proposePlan, publishRuns } from '../services/runs'
 import { audit } from '../services/audit'
@@ -9,38 +17,70 @@ import { badRequest } from '../errors'
 const today = () => new Date().toISOString().slice(0, 10)
 
 export const runRoutes: RouteDef[] = [
-  {
-    method: 'get', path: '/crews', access: ['supervisor', 'manager', 'admin', 'safety'], tag: 'runs', summary: 'Crews with depot, shift, platform and members',
+  defineRoute({
+    method: 'get',
+    path: '/crews',
+    access: ['supervisor', 'manager', 'admin', 'safety'],
+    tag: 'runs',
+    summary: 'Crews with depot, shift, platform and members',
     response: crewList,
     handler: async ({ deps }) => ({ items: await loadCrews(deps.db) }),
-  },
-  {
-    method: 'post', path: '/runs/plan', access: planners, tag: 'runs', summary: 'Propose runs: assign queue items to crews and order them (not saved)',
-    body: planBody, response: planResult,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/runs/plan',
+    access: planners,
+    tag: 'runs',
+    summary: 'Propose runs: assign queue items to crews and order them (not saved)',
+    body: planBody,
+    response: planResult,
     handler: ({ deps, body }) => proposePlan(deps.db, body),
-  },
-  {
-    method: 'post', path: '/runs/publish', access: planners, tag: 'runs', summary: 'Publish runs in the given order and e-mail each crew',
-    body: publishBody, response: planResult,
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/runs/publish',
+    access: planners,
+    tag: 'runs',
+    summary: 'Publish runs in the given order and e-mail each crew',
+    body: publishBody,
+    response: planResult,
     handler: async ({ deps, body, user }) => {
       const result = await publishRuns(deps.db, deps.mailer, deps.config, user.id, body)
-      await audit(deps.db, { userId: user.id, action: 'publish', entity: 'run', details: { date: body.date, crews: body.runs.map((r: { crewId: number }) => r.crewId) } })
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'publish',
+        entity: 'run',
+        details: { date: body.date, crews: body.runs.map((r) => r.crewId) },
+      })
       return result
     },
-  },
-  {
-    method: 'get', path: '/runs', access: planners, tag: 'runs', summary: 'Published runs for a date',
-    query: runsQuery, response: runsList,
-    handler: async ({ deps, query }) => ({ date: query.date ?? today(), runs: await listRuns(deps.db, query.date ?? today()) }),
-  },
-  {
-    method: 'get', path: '/runs/mine', access: ['crew', 'supervisor'], tag: 'runs', summary: "The signed-in crew member's run for a date (default today)",
-    query: runsQuery, response: myRun,
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/runs',
+    access: planners,
+    tag: 'runs',
+    summary: 'Published runs for a date',
+    query: runsQuery,
+    response: runsList,
+    handler: async ({ deps, query }) => ({
+      date: query.date ?? today(),
+      runs: await listRuns(deps.db, query.date ?? today()),
+    }),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/runs/mine',
+    access: ['crew', 'supervisor'],
+    tag: 'runs',
+    summary: "The signed-in crew member's run for a date (default today)",
+    query: runsQuery,
+    response: myRun,
     handler: async ({ deps, query, user }) => {
       if (!user.crewId) throw badRequest('no_crew', 'You are not a member of a crew.')
       const date = query.date ?? today()
       const [run] = await listRuns(deps.db, date, user.crewId)
       return { date, run: run?.state === 'published' ? run : null }
     },
-  },
+  }),
 ]

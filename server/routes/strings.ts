@@ -1,23 +1,38 @@
 import { roles } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { bboxQuery, mapList, stringDetail, tagLookup, tagParam } from '../../shared/schemas/strings'
-import type { RouteDef } from '../route-table'
+import { defineRoute, type RouteDef } from '../route-table'
 import { findByTag, listForMap, stringDetail as loadDetail } from '../services/strings'
 
 export const stringRoutes: RouteDef[] = [
-  {
-    method: 'get', path: '/strings', access: roles, tag: 'strings', summary: 'Strings in a bounding box, or found by tag or street',
-    query: bboxQuery, response: mapList,
+  defineRoute({
+    method: 'get',
+    path: '/strings',
+    access: roles,
+    tag: 'strings',
+    summary: 'Strings in a bounding box, or found by tag or street',
+    query: bboxQuery,
+    response: mapList,
     handler: ({ deps, query }) => listForMap(deps.db, query),
-  },
-  {
-    method: 'get', path: '/strings/by-tag/:tag', access: roles, tag: 'strings', summary: 'Find a string by its asset tag (QR label)',
-    params: tagParam, response: tagLookup,
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/strings/by-tag/:tag',
+    access: roles,
+    tag: 'strings',
+    summary: 'Find a string by its asset tag (QR label)',
+    params: tagParam,
+    response: tagLookup,
     handler: ({ deps, params }) => findByTag(deps.db, params.tag),
-  },
-  {
-    method: 'get', path: '/strings/:id', access: roles, tag: 'strings', summary: 'One string with its assessment, forecast and history',
-    params: idParam, response: stringDetail,
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/strings/:id',
+    access: roles,
+    tag: 'strings',
+    summary: 'One string with its assessment, forecast and history',
+    params: idParam,
+    response: stringDetail,
     handler: ({ deps, params }) => loadDetail(deps.db, params.id),
-  },
+  }),
 ]

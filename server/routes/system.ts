@@ -1,7 +1,7 @@
 import { roles } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { clientConfig, healthResponse, mailList, mailMessage } from '../../shared/schemas/system'
-import type { RouteDef } from '../route-table'
+import { defineRoute, type RouteDef } from '../route-table'
 import { HttpError } from '../errors'
 import { demoAccounts, DEMO_PASSWORD } from '../../seeds/demo/accounts'
 import { getMail, listMail } from '../services/mail'
@@ -10,8 +10,12 @@ import { demoBasemap } from '../services/basemap'
 import { basemap } from '../../shared/schemas/system'
 
 export const systemRoutes: RouteDef[] = [
-  {
-    method: 'get', path: '/health', access: 'public', tag: 'system', summary: 'Liveness and database check',
+  defineRoute({
+    method: 'get',
+    path: '/health',
+    access: 'public',
+    tag: 'system',
+    summary: 'Liveness and database check',
     response: healthResponse,
     handler: async ({ deps, res }) => {
       try {
@@ -22,9 +26,13 @@ export const systemRoutes: RouteDef[] = [
         return { status: 'degraded', db: 'down' }
       }
     },
-  },
-  {
-    method: 'get', path: '/config', access: 'public', tag: 'system', summary: 'Settings the client needs before sign-in',
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/config',
+    access: 'public',
+    tag: 'system',
+    summary: 'Settings the client needs before sign-in',
     response: clientConfig,
     handler: ({ deps }) => {
       const demo = deps.config.DEMO_MODE
@@ -37,29 +45,44 @@ export const systemRoutes: RouteDef[] = [
         mailOutbox: demo && !deps.config.SMTP_URL,
       }
     },
-  },
-  {
-    method: 'get', path: '/basemap', access: 'public', tag: 'system', summary: "The demo town's streets as GeoJSON, drawn when no TILE_URL is set",
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/basemap',
+    access: 'public',
+    tag: 'system',
+    summary: "The demo town's streets as GeoJSON, drawn when no TILE_URL is set",
     response: basemap,
     handler: ({ res }) => {
       res.setHeader('Cache-Control', 'public, max-age=3600')
       return demoBasemap()
     },
-  },
-  {
-    method: 'get', path: '/mail', access: roles, tag: 'system', summary: 'Messages caught by the local mail fake (demo only)',
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/mail',
+    access: roles,
+    tag: 'system',
+    summary: 'Messages caught by the local mail fake (demo only)',
     response: mailList,
     handler: async ({ deps }) => {
-      if (!deps.config.DEMO_MODE) throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
+      if (!deps.config.DEMO_MODE)
+        throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
       return { items: await listMail(deps.db) }
     },
-  },
-  {
-    method: 'get', path: '/mail/:id', access: roles, tag: 'system', summary: 'One caught message (demo only)',
-    params: idParam, response: mailMessage,
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/mail/:id',
+    access: roles,
+    tag: 'system',
+    summary: 'One caught message (demo only)',
+    params: idParam,
+    response: mailMessage,
     handler: async ({ deps, params }) => {
-      if (!deps.config.DEMO_MODE) throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
+      if (!deps.config.DEMO_MODE)
+        throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
       return getMail(deps.db, params.id)
     },
-  },
+  }),
 ]

@@ -4,8 +4,16 @@ import { notFound } from '../errors'
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d))
 
 export async function listMail(db: Db) {
-  const rows = await db('caughtMail').select('id', 'toAddress', 'subject', 'receivedAt').orderBy('id', 'desc').limit(200)
-  return rows.map((r) => ({ id: r.id, to: r.toAddress ?? '', subject: r.subject ?? '', createdAt: iso(r.receivedAt) }))
+  const rows = await db('caughtMail')
+    .select('id', 'toAddress', 'subject', 'receivedAt')
+    .orderBy('id', 'desc')
+    .limit(200)
+  return rows.map((r) => ({
+    id: r.id,
+    to: r.toAddress ?? '',
+    subject: r.subject ?? '',
+    createdAt: iso(r.receivedAt),
+  }))
 }
 
 export async function getMail(db: Db, id: number) {

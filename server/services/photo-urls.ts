@@ -1,3 +1,6 @@
 import { API_PREFIX } from '../openapi'
 
-export const photoUrls = (id: number) => ({ url: `${API_PREFIX}/photos/${id}/file`, thumbUrl: `${API_PREFIX}/photos/${id}/thumb` })
+export const photoUrls = (id: number) => ({
+  url: `${API_PREFIX}/photos/${id}/file`,
+  thumbUrl: `${API_PREFIX}/photos/${id}/thumb`,
+})

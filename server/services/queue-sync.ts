@@ -24,19 +24,35 @@ export async function openItem(trx: Trx, item: OpenItem, now = new Date()): Prom
   if (existing) return existing.id
   let dueBy = item.dueBy
   if (!dueBy && item.clientId) {
-    const c = await trx('clients').where({ id: item.clientId }).first('responseEmergencyHours', 'responseStandardHours')
+    const c = await trx('clients')
+      .where({ id: item.clientId })
+      .first('responseEmergencyHours', 'responseStandardHours')
     const hours = item.severity === 'emergency' ? c.responseEmergencyHours : c.responseStandardHours
     dueBy = new Date((item.openedAt ?? now).getTime() + hours * 3_600_000)
   }
   const [id] = await trx('queueItems').insert({
-    kind: item.kind, openKey, stringId: item.stringId ?? null, reportId: item.reportId ?? null, certificateId: item.certificateId ?? null,
-    siteId: item.siteId ?? null, clientId: item.clientId ?? null, severity: item.severity, state: 'open',
-    openedAt: item.openedAt ?? now, dueBy: dueBy ?? new Date(now.getTime() + 36 * 3_600_000), summary: item.summary.slice(0, 255),
+    kind: item.kind,
+    openKey,
+    stringId: item.stringId ?? null,
+    reportId: item.reportId ?? null,
+    certificateId: item.certificateId ?? null,
+    siteId: item.siteId ?? null,
+    clientId: item.clientId ?? null,
+    severity: item.severity,
+    state: 'open',
+    openedAt: item.openedAt ?? now,
+    dueBy: dueBy ?? new Date(now.getTime() + 36 * 3_600_000),
+    summary: item.summary.slice(0, 255),
   })
   return id
 }
 
-export async function closeItems(trx: Trx, where: { stringId: number; kinds: Kind[] }, visitId: number | null, now = new Date()) {
+export async function closeItems(
+  trx: Trx,
+  where: { stringId: number; kinds: Kind[] },
+  visitId: number | null,
+  now = new Date(),
+) {
   await trx('queueItems')
     .where({ stringId: where.stringId })
     .whereIn('kind', where.kinds)
@@ -46,17 +62,37 @@ export async function closeItems(trx: Trx, where: { stringId: number; kinds: Kin
 
 /** Keeps a string's queue items in step with its state: open what it needs, close what a visit fixed. */
 export async function syncStringQueue(trx: Trx, stringId: number, visitId: number | null, now = new Date()) {
-  const s = await trx('strings as s').join('sites as si', 'si.id', 's.siteId').where('s.id', stringId)
+  const s = await trx('strings as s')
+    .join('sites as si', 'si.id', 's.siteId')
+    .where('s.id', stringId)
     .first('s.id', 's.assetTag', 's.name', 's.status', 's.lampsOut', 's.siteId', 'si.clientId')
   if (!s) return
   const base = { stringId, siteId: s.siteId, clientId: s.clientId, subject: `string:${stringId}` }
   if (s.status === 'dark') {
     await closeItems(trx, { stringId, kinds: ['replace_now'] }, visitId, now)
-    await openItem(trx, { ...base, kind: 'dark', severity: 'standard', summary: `${s.assetTag} ${s.name} is dark` }, now)
+    await openItem(
+      trx,
+      { ...base, kind: 'dark', severity: 'standard', summary: `${s.assetTag} ${s.name} is dark` },
+      now,
+    )
   } else if (s.status === 'replace') {
     await closeItems(trx, { stringId, kinds: ['dark'] }, visitId, now)
-    await openItem(trx, { ...base, kind: 'replace_now', severity: 'standard', summary: `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now` }, now)
+    await openItem(
+      trx,
+      {
+        ...base,
+        kind: 'replace_now',
+        severity: 'standard',
+        summary: `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now`,
+      },
+      now,
+    )
   } else {
-    await closeItems(trx, { stringId, kinds: ['dark', 'replace_now', 'forecast_dark', 'public_report'] }, visitId, now)
+    await closeItems(
+      trx,
+      { stringId, kinds: ['dark', 'replace_now', 'forecast_dark', 'public_report'] },
+      visitId,
+      now,
+    )
   }
 }

@@ -36,18 +36,32 @@ export async function loadItems(db: Db, ids: number[]): Promise<Map<number, Item
   const missing = ids.filter((id) => !picked.some((p) => p.id === id))
   if (missing.length) throw badRequest('unknown_items', 'Some queue items do not exist.', { missing })
   const noPlace = picked.filter((p) => p.lat == null || p.lng == null)
-  if (noPlace.length) throw badRequest('items_without_place', 'Some items have no location to plan a run to.', { ids: noPlace.map((p) => p.id) })
+  if (noPlace.length)
+    throw badRequest('items_without_place', 'Some items have no location to plan a run to.', {
+      ids: noPlace.map((p) => p.id),
+    })
   const stringIds = picked.map((p) => p.string?.id).filter((x): x is number => !!x)
   const geometry = new Map(
-    (await db('strings').whereIn('id', stringIds).select('id', 'geometry')).map((s) => [s.id as number, s.geometry as string]),
+    (await db('strings').whereIn('id', stringIds).select('id', 'geometry')).map((s) => [
+      s.id as number,
+      s.geometry as string,
+    ]),
   )
   return new Map(
     picked.map((p) => [
       p.id,
       {
-        itemId: p.id, kind: p.kind, summary: p.summary, stringId: p.string?.id ?? null, assetTag: p.string?.assetTag ?? null,
-        siteName: p.site?.name ?? null, lat: p.lat!, lng: p.lng!, serviceMinutes: SERVICE_MINUTES[p.kind] ?? 30,
-        window: p.site?.accessFrom && p.site?.accessTo ? { from: p.site.accessFrom, to: p.site.accessTo } : null,
+        itemId: p.id,
+        kind: p.kind,
+        summary: p.summary,
+        stringId: p.string?.id ?? null,
+        assetTag: p.string?.assetTag ?? null,
+        siteName: p.site?.name ?? null,
+        lat: p.lat!,
+        lng: p.lng!,
+        serviceMinutes: SERVICE_MINUTES[p.kind] ?? 30,
+        window:
+          p.site?.accessFrom && p.site?.accessTo ? { from: p.site.accessFrom, to: p.site.accessTo } : null,
         // Catenaries and festoons hang over the carriageway (≥ 5.2 m): work from a platform.
         needsPlatform: p.string ? geometry.get(p.string.id) === 'line' : false,
         priority: p.score,
@@ -57,26 +71,59 @@ export async function loadItems(db: Db, ids: number[]): Promise<Map<number, Item
 }
 
 export async function loadCrews(db: Db, ids?: number[]) {
-  const q = db('crews as c').leftJoin('platforms as p', 'p.id', 'c.platformId').where('c.active', true)
+  const q = db('crews as c')
+    .leftJoin('platforms as p', 'p.id', 'c.platformId')
+    .where('c.active', true)
     .select('c.*', 'p.name as platformName', 'p.assetTag as platformTag', 'p.workingHeightM')
   if (ids) q.whereIn('c.id', ids)
   const crews = await q.orderBy('c.name')
-  if (ids && crews.length !== ids.length) throw badRequest('unknown_crews', 'Some crews do not exist or are inactive.')
-  const members = await db('users').whereIn('crewId', crews.map((c) => c.id)).where('active', true).select('id', 'name', 'email', 'crewId')
+  if (ids && crews.length !== ids.length)
+    throw badRequest('unknown_crews', 'Some crews do not exist or are inactive.')
+  const members = await db('users')
+    .whereIn(
+      'crewId',
+      crews.map((c) => c.id),
+    )
+    .where('active', true)
+    .select('id', 'name', 'email', 'crewId')
   return crews.map((c) => ({
-    id: c.id as number, name: c.name as string, depotName: c.depotName as string, depotLat: c.depotLat as number, depotLng: c.depotLng as number,
-    shiftStart: c.shiftStart as string, shiftEnd: c.shiftEnd as string,
-    platform: c.platformId ? { id: c.platformId as number, name: c.platformName as string, assetTag: c.platformTag as string, workingHeightM: c.workingHeightM as number } : null,
-    members: members.filter((m) => m.crewId === c.id).map((m) => ({ id: m.id as number, name: m.name as string, email: m.email as string })),
+    id: c.id as number,
+    name: c.name as string,
+    depotName: c.depotName as string,
+    depotLat: c.depotLat as number,
+    depotLng: c.depotLng as number,
+    shiftStart: c.shiftStart as string,
+    shiftEnd: c.shiftEnd as string,
+    platform: c.platformId
+      ? {
+          id: c.platformId as number,
+          name: c.platformName as string,
+          assetTag: c.platformTag as string,
+          workingHeightM: c.workingHeightM as number,
+        }
+      : null,
+    members: members
+      .filter((m) => m.crewId === c.id)
+      .map((m) => ({ id: m.id as number, name: m.name as string, email: m.email as string })),
   }))
 }
 export type CrewInfo = Awaited<ReturnType<typeof loadCrews>>[number]
 
 export const toPlanCrew = (c: CrewInfo): PlanCrew => ({
-  id: String(c.id), name: c.name, depot: { lat: c.depotLat, lng: c.depotLng }, shiftStart: c.shiftStart, shiftEnd: c.shiftEnd, hasPlatform: !!c.platform,
+  id: String(c.id),
+  name: c.name,
+  depot: { lat: c.depotLat, lng: c.depotLng },
+  shiftStart: c.shiftStart,
+  shiftEnd: c.shiftEnd,
+  hasPlatform: !!c.platform,
 })
 
 export const toPlanItem = (i: ItemInfo): PlanItem => ({
-  id: String(i.itemId), lat: i.lat, lng: i.lng, serviceMinutes: i.serviceMinutes, window: i.window ?? undefined,
-  needsPlatform: i.needsPlatform, priority: i.priority,
+  id: String(i.itemId),
+  lat: i.lat,
+  lng: i.lng,
+  serviceMinutes: i.serviceMinutes,
+  window: i.window ?? undefined,
+  needsPlatform: i.needsPlatform,
+  priority: i.priority,
 })

@@ -9,17 +9,44 @@ import { runMail } from '../mail/run-mail'
 
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
 
-function view(date: string, crew: CrewInfo, planned: PlanResult['runs'][number] | undefined, items: Map<number, ItemInfo>, pinned: Set<number>): CrewRun {
+function view(
+  date: string,
+  crew: CrewInfo,
+  planned: PlanResult['runs'][number] | undefined,
+  items: Map<number, ItemInfo>,
+  pinned: Set<number>,
+): CrewRun {
   return {
-    id: null, crewId: crew.id, crewName: crew.name, date, state: 'proposal', version: 0, publishedAt: null,
-    depot: { name: crew.depotName, lat: crew.depotLat, lng: crew.depotLng }, shiftStart: crew.shiftStart, shiftEnd: crew.shiftEnd,
+    id: null,
+    crewId: crew.id,
+    crewName: crew.name,
+    date,
+    state: 'proposal',
+    version: 0,
+    publishedAt: null,
+    depot: { name: crew.depotName, lat: crew.depotLat, lng: crew.depotLng },
+    shiftStart: crew.shiftStart,
+    shiftEnd: crew.shiftEnd,
     platform: crew.platform ? `${crew.platform.assetTag} ${crew.platform.name}` : null,
     stops: (planned?.stops ?? []).map((s) => {
       const it = items.get(Number(s.itemId))!
       return {
-        itemId: it.itemId, kind: it.kind as CrewRun['stops'][number]['kind'], summary: it.summary, stringId: it.stringId, assetTag: it.assetTag,
-        siteName: it.siteName, lat: it.lat, lng: it.lng, arrive: s.arrive, start: s.start, depart: s.depart, travelMinutes: s.travelMinutes,
-        serviceMinutes: it.serviceMinutes, pinned: pinned.has(it.itemId), window: it.window, doneAt: null,
+        itemId: it.itemId,
+        kind: it.kind as CrewRun['stops'][number]['kind'],
+        summary: it.summary,
+        stringId: it.stringId,
+        assetTag: it.assetTag,
+        siteName: it.siteName,
+        lat: it.lat,
+        lng: it.lng,
+        arrive: s.arrive,
+        start: s.start,
+        depart: s.depart,
+        travelMinutes: s.travelMinutes,
+        serviceMinutes: it.serviceMinutes,
+        pinned: pinned.has(it.itemId),
+        window: it.window,
+        doneAt: null,
       }
     }),
     returnAt: planned?.returnAt ?? crew.shiftStart,
@@ -37,50 +64,95 @@ export async function proposePlan(db: Db, body: PlanBody): Promise<PlanResultVie
     crews: crews.map(toPlanCrew),
     items: [...items.values()].map((i) => {
       const pin = pins.get(i.itemId)
-      return { ...toPlanItem(i), ...(pin ? { pinnedCrewId: String(pin.crewId), pinnedIndex: pin.index } : {}) }
+      return {
+        ...toPlanItem(i),
+        ...(pin ? { pinnedCrewId: String(pin.crewId), pinnedIndex: pin.index } : {}),
+      }
     }),
     settings: { speedKmh: body.speedKmh, detourFactor: body.detourFactor },
   })
   const pinned = new Set(pins.keys())
   return {
     date: body.date,
-    runs: crews.map((c) => view(body.date, c, result.runs.find((r) => r.crewId === String(c.id)), items, pinned)),
-    unassigned: result.unassigned.map((u) => ({ itemId: Number(u.itemId), summary: items.get(Number(u.itemId))!.summary, reason: u.reason, message: u.message })),
+    runs: crews.map((c) =>
+      view(
+        body.date,
+        c,
+        result.runs.find((r) => r.crewId === String(c.id)),
+        items,
+        pinned,
+      ),
+    ),
+    unassigned: result.unassigned.map((u) => ({
+      itemId: Number(u.itemId),
+      summary: items.get(Number(u.itemId))!.summary,
+      reason: u.reason,
+      message: u.message,
+    })),
   }
 }
 
 /** Saves each crew's run in the order given, times it, and tells the crew by e-mail (new or changed). */
 export async function publishRuns(
-  db: Db, mailer: Mailer, config: Config, userId: number,
-  body: { date: string; runs: { crewId: number; itemIds: number[] }[]; speedKmh?: number; detourFactor?: number },
+  db: Db,
+  mailer: Mailer,
+  config: Config,
+  userId: number,
+  body: {
+    date: string
+    runs: { crewId: number; itemIds: number[] }[]
+    speedKmh?: number
+    detourFactor?: number
+  },
 ) {
   const plan = await proposePlan(db, {
-    date: body.date, crewIds: body.runs.map((r) => r.crewId), itemIds: [...new Set(body.runs.flatMap((r) => r.itemIds))],
+    date: body.date,
+    crewIds: body.runs.map((r) => r.crewId),
+    itemIds: [...new Set(body.runs.flatMap((r) => r.itemIds))],
     pins: body.runs.flatMap((r) => r.itemIds.map((itemId, index) => ({ itemId, crewId: r.crewId, index }))),
-    speedKmh: body.speedKmh, detourFactor: body.detourFactor,
+    speedKmh: body.speedKmh,
+    detourFactor: body.detourFactor,
   })
   const now = new Date()
   const notices: { crewId: number; changed: boolean }[] = []
   await db.transaction(async (trx) => {
     for (const run of plan.runs) {
-      const prev = await trx('runs').where({ crewId: run.crewId, runDate: body.date }).first('id', 'version', 'state')
+      const prev = await trx('runs')
+        .where({ crewId: run.crewId, runDate: body.date })
+        .first('id', 'version', 'state')
       const row = {
-        state: 'published', publishedAt: now, publishedBy: userId, totalTravelMinutes: run.totalTravelMinutes,
-        totalServiceMinutes: run.totalServiceMinutes, returnAt: run.returnAt,
+        state: 'published',
+        publishedAt: now,
+        publishedBy: userId,
+        totalTravelMinutes: run.totalTravelMinutes,
+        totalServiceMinutes: run.totalServiceMinutes,
+        returnAt: run.returnAt,
       }
       let runId: number
       if (prev) {
         runId = prev.id
-        await trx('runs').where({ id: runId }).update({ ...row, version: prev.version + 1 })
+        await trx('runs')
+          .where({ id: runId })
+          .update({ ...row, version: prev.version + 1 })
         await trx('runStops').where({ runId }).delete()
       } else {
         ;[runId] = await trx('runs').insert({ ...row, crewId: run.crewId, runDate: body.date, version: 1 })
       }
       if (run.stops.length) {
-        await trx('runStops').insert(run.stops.map((s, i) => ({
-          runId, position: i + 1, queueItemId: s.itemId, stringId: s.stringId, arriveAt: s.arrive, startAt: s.start, departAt: s.depart,
-          travelMinutes: s.travelMinutes, serviceMinutes: s.serviceMinutes, pinned: true,
-        })))
+        await trx('runStops').insert(
+          run.stops.map((s, i) => ({
+            runId,
+            position: i + 1,
+            queueItemId: s.itemId,
+            stringId: s.stringId,
+            arriveAt: s.arrive,
+            startAt: s.start,
+            departAt: s.depart,
+            travelMinutes: s.travelMinutes,
+            serviceMinutes: s.serviceMinutes,
+            pinned: true,
+          })),
+        )
       }
       notices.push({ crewId: run.crewId, changed: prev?.state === 'published' })
     }
@@ -99,27 +171,74 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
   if (crewId) q.where({ crewId })
   const runs = await q.select('*')
   if (!runs.length) return []
-  const crews = await loadCrews(db, runs.map((r) => r.crewId))
-  const stops = await db('runStops as rs').leftJoin('queueItems as q', 'q.id', 'rs.queueItemId').leftJoin('strings as s', 's.id', 'rs.stringId')
-    .leftJoin('sites as si', 'si.id', 's.siteId').whereIn('rs.runId', runs.map((r) => r.id)).orderBy(['rs.runId', 'rs.position'])
-    .select('rs.*', 'q.kind', 'q.summary', 's.assetTag', 's.lat', 's.lng', 'si.name as siteName', 'si.accessFrom', 'si.accessTo', 'q.siteId')
-  const sites = new Map((await db('sites').select('id', 'name', 'lat', 'lng')).map((s) => [s.id as number, s]))
+  const crews = await loadCrews(
+    db,
+    runs.map((r) => r.crewId),
+  )
+  const stops = await db('runStops as rs')
+    .leftJoin('queueItems as q', 'q.id', 'rs.queueItemId')
+    .leftJoin('strings as s', 's.id', 'rs.stringId')
+    .leftJoin('sites as si', 'si.id', 's.siteId')
+    .whereIn(
+      'rs.runId',
+      runs.map((r) => r.id),
+    )
+    .orderBy(['rs.runId', 'rs.position'])
+    .select(
+      'rs.*',
+      'q.kind',
+      'q.summary',
+      's.assetTag',
+      's.lat',
+      's.lng',
+      'si.name as siteName',
+      'si.accessFrom',
+      'si.accessTo',
+      'q.siteId',
+    )
+  const sites = new Map(
+    (await db('sites').select('id', 'name', 'lat', 'lng')).map((s) => [s.id as number, s]),
+  )
   return runs.map((r) => {
     const crew = crews.find((c) => c.id === r.crewId)!
     return {
-      id: r.id, crewId: r.crewId, crewName: crew.name, date, state: r.state, version: r.version, publishedAt: iso(r.publishedAt),
-      depot: { name: crew.depotName, lat: crew.depotLat, lng: crew.depotLng }, shiftStart: crew.shiftStart, shiftEnd: crew.shiftEnd,
+      id: r.id,
+      crewId: r.crewId,
+      crewName: crew.name,
+      date,
+      state: r.state,
+      version: r.version,
+      publishedAt: iso(r.publishedAt),
+      depot: { name: crew.depotName, lat: crew.depotLat, lng: crew.depotLng },
+      shiftStart: crew.shiftStart,
+      shiftEnd: crew.shiftEnd,
       platform: crew.platform ? `${crew.platform.assetTag} ${crew.platform.name}` : null,
-      stops: stops.filter((s) => s.runId === r.id).map((s) => {
-        const site = s.siteId ? sites.get(s.siteId) : undefined
-        return {
-          itemId: s.queueItemId ?? null, kind: s.kind ?? null, summary: s.summary ?? 'Stop', stringId: s.stringId ?? null, assetTag: s.assetTag ?? null,
-          siteName: s.siteName ?? site?.name ?? null, lat: s.lat ?? site?.lat ?? crew.depotLat, lng: s.lng ?? site?.lng ?? crew.depotLng,
-          arrive: s.arriveAt, start: s.startAt, depart: s.departAt, travelMinutes: s.travelMinutes ?? 0, serviceMinutes: s.serviceMinutes ?? 0,
-          pinned: !!s.pinned, window: s.accessFrom && s.accessTo ? { from: s.accessFrom, to: s.accessTo } : null, doneAt: iso(s.doneAt),
-        }
-      }),
-      returnAt: r.returnAt ?? crew.shiftStart, totalTravelMinutes: r.totalTravelMinutes ?? 0, totalServiceMinutes: r.totalServiceMinutes ?? 0,
+      stops: stops
+        .filter((s) => s.runId === r.id)
+        .map((s) => {
+          const site = s.siteId ? sites.get(s.siteId) : undefined
+          return {
+            itemId: s.queueItemId ?? null,
+            kind: s.kind ?? null,
+            summary: s.summary ?? 'Stop',
+            stringId: s.stringId ?? null,
+            assetTag: s.assetTag ?? null,
+            siteName: s.siteName ?? site?.name ?? null,
+            lat: s.lat ?? site?.lat ?? crew.depotLat,
+            lng: s.lng ?? site?.lng ?? crew.depotLng,
+            arrive: s.arriveAt,
+            start: s.startAt,
+            depart: s.departAt,
+            travelMinutes: s.travelMinutes ?? 0,
+            serviceMinutes: s.serviceMinutes ?? 0,
+            pinned: !!s.pinned,
+            window: s.accessFrom && s.accessTo ? { from: s.accessFrom, to: s.accessTo } : null,
+            doneAt: iso(s.doneAt),
+          }
+        }),
+      returnAt: r.returnAt ?? crew.shiftStart,
+      totalTravelMinutes: r.totalTravelMinutes ?? 0,
+      totalServiceMinutes: r.totalServiceMinutes ?? 0,
     }
   })
 }

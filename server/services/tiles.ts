@@ -6,7 +6,12 @@ import type { Config } from '../config'
  */
 export function tileSettings(config: Config) {
   if (config.TILE_URL) {
-    return { url: config.TILE_URL, attribution: config.TILE_ATTRIBUTION, maxZoom: config.TILE_MAX_ZOOM, local: false }
+    return {
+      url: config.TILE_URL,
+      attribution: config.TILE_ATTRIBUTION,
+      maxZoom: config.TILE_MAX_ZOOM,
+      local: false,
+    }
   }
   return { url: null, attribution: 'Lampwright demo basemap', maxZoom: 20, local: true }
 }

@@ -52,17 +52,24 @@ export async function verifyCredentials(db: Db, email: string, password: string)
 }
 
 export async function listUsers(db: Db): Promise<UserRow[]> {
-  const rows = await db('users').select(...userColumns).orderBy('name')
+  const rows = await db('users')
+    .select(...userColumns)
+    .orderBy('name')
   return rows.map(mapUser)
 }
 
 export async function getUser(db: Db, id: number): Promise<UserRow> {
-  const r = await db('users').where({ id }).first(...userColumns)
+  const r = await db('users')
+    .where({ id })
+    .first(...userColumns)
   if (!r) throw notFound('User')
   return mapUser(r)
 }
 
-export async function inviteUser(db: Db, input: { name: string; email: string; role: Role; crewId?: number | null }) {
+export async function inviteUser(
+  db: Db,
+  input: { name: string; email: string; role: Role; crewId?: number | null },
+) {
   const exists = await db('users').where({ email: input.email }).first('id')
   if (exists) throw conflict('email_taken', 'A user with this e-mail already exists.')
   const token = randomBytes(24).toString('base64url')
@@ -81,13 +88,19 @@ export async function inviteUser(db: Db, input: { name: string; email: string; r
 }
 
 export async function acceptInvite(db: Db, token: string, password: string) {
-  const u = await db('users').where({ inviteTokenHash: hashToken(token), active: true }).first()
+  const u = await db('users')
+    .where({ inviteTokenHash: hashToken(token), active: true })
+    .first()
   if (!u || new Date(u.inviteExpiresAt) < new Date()) {
     throw badRequest('invalid_invite', 'This invitation link is not valid or has expired.')
   }
   await db('users')
     .where({ id: u.id })
-    .update({ passwordHash: await bcrypt.hash(password, BCRYPT_COST), inviteTokenHash: null, lastSignInAt: new Date() })
+    .update({
+      passwordHash: await bcrypt.hash(password, BCRYPT_COST),
+      inviteTokenHash: null,
+      lastSignInAt: new Date(),
+    })
   return { id: u.id, name: u.name, email: u.email, role: u.role as Role, crewId: u.crewId ?? null }
 }
 

@@ -10,16 +10,28 @@ const invalid = (field: string, message: string) =>
   badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
 
 async function existingVisit(db: Db, key: string) {
-  const v = await db('visits as v').join('strings as s', 's.id', 'v.stringId').where('v.idempotencyKey', key)
+  const v = await db('visits as v')
+    .join('strings as s', 's.id', 'v.stringId')
+    .where('v.idempotencyKey', key)
     .first('v.id', 's.id as stringId', 's.lampsOut', 's.status', 's.replaceNow')
-  return v ? { id: v.id, string: { id: v.stringId, lampsOut: v.lampsOut, status: v.status, replaceNow: !!v.replaceNow } } : null
+  return v
+    ? {
+        id: v.id,
+        string: { id: v.stringId, lampsOut: v.lampsOut, status: v.status, replaceNow: !!v.replaceNow },
+      }
+    : null
 }
 
 /**
  * Logs a visit. The visit, the string's new counts and flags and its queue items commit together;
  * the same idempotency key again returns the first visit instead of a second one.
  */
-export async function logVisit(db: Db, user: { id: number; crewId: number | null }, key: string, body: VisitBody) {
+export async function logVisit(
+  db: Db,
+  user: { id: number; crewId: number | null },
+  key: string,
+  body: VisitBody,
+) {
   const replay = await existingVisit(db, key)
   if (replay) return { created: false, visit: replay }
   try {
@@ -29,18 +41,33 @@ export async function logVisit(db: Db, user: { id: number; crewId: number | null
       const type = await loadType(trx as unknown as Db, s.typeId)
       const capacity = shuntedLampCount(type)
       const outNow = s.lampsOut + body.failedFound
-      if (outNow > capacity) throw invalid('failedFound', `This string has ${capacity} lamps; ${s.lampsOut} are already recorded out.`)
-      if (body.replaced > outNow) throw invalid('replaced', `Only ${outNow} lamps are out (${s.lampsOut} recorded + ${body.failedFound} found).`)
+      if (outNow > capacity)
+        throw invalid(
+          'failedFound',
+          `This string has ${capacity} lamps; ${s.lampsOut} are already recorded out.`,
+        )
+      if (body.replaced > outNow)
+        throw invalid(
+          'replaced',
+          `Only ${outNow} lamps are out (${s.lampsOut} recorded + ${body.failedFound} found).`,
+        )
       const touches = body.replaced > 0 || !!body.fuseReplaced
       let isolationId: number | null = body.isolationId ?? null
       if (body.isolationKey) {
         const iso = await trx('isolations').where({ idempotencyKey: body.isolationKey }).first('id')
-        if (!iso) throw badRequest('isolation_unknown', 'The isolation for this visit has not arrived yet; send it first.')
+        if (!iso)
+          throw badRequest(
+            'isolation_unknown',
+            'The isolation for this visit has not arrived yet; send it first.',
+          )
         isolationId = iso.id
       }
       if (isolationId) await requireIsolatedFor(trx, isolationId, s.id)
       else if (touches && !body.noIsolationReason) {
-        throw badRequest('isolation_required', 'Record the isolation steps before relamping, or say why none was needed.')
+        throw badRequest(
+          'isolation_required',
+          'Record the isolation steps before relamping, or say why none was needed.',
+        )
       }
       const fixed = body.replaced > 0 || !!body.fuseReplaced
       const cond = {
@@ -52,16 +79,36 @@ export async function logVisit(db: Db, user: { id: number; crewId: number | null
       const { status, replaceNow, result } = stringStatus(type, cond)
       const now = new Date()
       const [id] = await trx('visits').insert({
-        idempotencyKey: key, stringId: s.id, userId: user.id, crewId: user.crewId, isolationId,
+        idempotencyKey: key,
+        stringId: s.id,
+        userId: user.id,
+        crewId: user.crewId,
+        isolationId,
         noIsolationReason: isolationId ? null : (body.noIsolationReason ?? null),
-        visitedAt: body.visitedAt ? new Date(body.visitedAt) : now, failedFound: body.failedFound, replaced: body.replaced,
-        fuseReplaced: !!body.fuseReplaced, darkOnArrival: !!body.darkOnArrival, supplyVolts: body.readings?.supplyVolts ?? null,
-        amps: body.readings?.amps ?? null, coldOhms: body.readings?.coldOhms ?? null, notes: body.notes ?? null,
-        lampsOutBefore: s.lampsOut, lampsOutAfter: cond.lampsOut, statusAfter: status, lat: body.lat ?? null, lng: body.lng ?? null,
+        visitedAt: body.visitedAt ? new Date(body.visitedAt) : now,
+        failedFound: body.failedFound,
+        replaced: body.replaced,
+        fuseReplaced: !!body.fuseReplaced,
+        darkOnArrival: !!body.darkOnArrival,
+        supplyVolts: body.readings?.supplyVolts ?? null,
+        amps: body.readings?.amps ?? null,
+        coldOhms: body.readings?.coldOhms ?? null,
+        notes: body.notes ?? null,
+        lampsOutBefore: s.lampsOut,
+        lampsOutAfter: cond.lampsOut,
+        statusAfter: status,
+        lat: body.lat ?? null,
+        lng: body.lng ?? null,
       })
       await trx('strings').where({ id: s.id }).update({
-        lampsOut: cond.lampsOut, fuseFailed: cond.fuseFailed, dark: !result.lit, isolated: cond.isolated, status, replaceNow,
-        maxRatio: result.maxRatio, lastVisitAt: now,
+        lampsOut: cond.lampsOut,
+        fuseFailed: cond.fuseFailed,
+        dark: !result.lit,
+        isolated: cond.isolated,
+        status,
+        replaceNow,
+        maxRatio: result.maxRatio,
+        lastVisitAt: now,
         // Relamping restarts the age clock only for the lamps replaced; we keep the string's age as the older lamps'.
       })
       await syncStringQueue(trx, s.id, id, now)

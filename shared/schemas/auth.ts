@@ -34,6 +34,10 @@ export const inviteBody = z.object({
   crewId: z.number().int().positive().nullable().optional(),
 })
 export const userPatch = z
-  .object({ role: roleSchema.optional(), active: z.boolean().optional(), crewId: z.number().int().positive().nullable().optional() })
+  .object({
+    role: roleSchema.optional(),
+    active: z.boolean().optional(),
+    crewId: z.number().int().positive().nullable().optional(),
+  })
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change.')
 export const userResponse = z.object({ user: userRow })

@@ -1,7 +1,14 @@
 import { z } from 'zod'
 import { statusSchema } from './strings'
 
-export const queueKinds = ['replace_now', 'dark', 'forecast_dark', 'public_report', 'certificate_due', 'rcd_failed'] as const
+export const queueKinds = [
+  'replace_now',
+  'dark',
+  'forecast_dark',
+  'public_report',
+  'certificate_due',
+  'rcd_failed',
+] as const
 export const queueKindLabel: Record<(typeof queueKinds)[number], string> = {
   replace_now: 'Replace now',
   dark: 'Dark string',
@@ -37,8 +44,23 @@ export const queueItem = z.object({
   snoozedUntil: z.string().nullable(),
   snoozeReason: z.string().nullable(),
   mergedCount: z.number(),
-  string: z.object({ id: z.number(), assetTag: z.string(), name: z.string(), status: statusSchema, lampsOut: z.number() }).nullable(),
-  site: z.object({ id: z.number(), name: z.string(), accessFrom: z.string().nullable(), accessTo: z.string().nullable() }).nullable(),
+  string: z
+    .object({
+      id: z.number(),
+      assetTag: z.string(),
+      name: z.string(),
+      status: statusSchema,
+      lampsOut: z.number(),
+    })
+    .nullable(),
+  site: z
+    .object({
+      id: z.number(),
+      name: z.string(),
+      accessFrom: z.string().nullable(),
+      accessTo: z.string().nullable(),
+    })
+    .nullable(),
   client: z.object({ id: z.number(), name: z.string() }).nullable(),
   lat: z.number().nullable(),
   lng: z.number().nullable(),
@@ -52,6 +74,9 @@ export const snoozeBody = z.object({
   until: z.iso.datetime({ offset: true }),
   reason: z.string().trim().min(3, 'Give a reason.').max(255),
 })
-export const mergeBody = z.object({ into: z.number().int().positive(), ids: z.array(z.number().int().positive()).min(1).max(50) })
+export const mergeBody = z.object({
+  into: z.number().int().positive(),
+  ids: z.array(z.number().int().positive()).min(1).max(50),
+})
 export const closeBody = z.object({ reason: z.string().trim().min(3).max(255) })
 export const refreshResult = z.object({ opened: z.number(), open: z.number() })

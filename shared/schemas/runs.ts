@@ -7,7 +7,15 @@ export const planBody = z.object({
   crewIds: z.array(z.number().int().positive()).min(1).max(20),
   itemIds: z.array(z.number().int().positive()).min(1).max(300),
   /** stops the supervisor fixed on a crew, in order */
-  pins: z.array(z.object({ itemId: z.number().int().positive(), crewId: z.number().int().positive(), index: z.number().int().min(0) })).default([]),
+  pins: z
+    .array(
+      z.object({
+        itemId: z.number().int().positive(),
+        crewId: z.number().int().positive(),
+        index: z.number().int().min(0),
+      }),
+    )
+    .default([]),
   speedKmh: z.number().min(3).max(90).optional(),
   detourFactor: z.number().min(1).max(3).optional(),
 })
@@ -55,13 +63,23 @@ export type CrewRun = z.infer<typeof crewRun>
 export const planResult = z.object({
   date: z.string(),
   runs: z.array(crewRun),
-  unassigned: z.array(z.object({ itemId: z.number(), summary: z.string(), reason: z.string(), message: z.string() })),
+  unassigned: z.array(
+    z.object({ itemId: z.number(), summary: z.string(), reason: z.string(), message: z.string() }),
+  ),
 })
 export type PlanResultView = z.infer<typeof planResult>
 
 export const publishBody = z.object({
   date: z.iso.date(),
-  runs: z.array(z.object({ crewId: z.number().int().positive(), itemIds: z.array(z.number().int().positive()).max(200) })).min(1).max(20),
+  runs: z
+    .array(
+      z.object({
+        crewId: z.number().int().positive(),
+        itemIds: z.array(z.number().int().positive()).max(200),
+      }),
+    )
+    .min(1)
+    .max(20),
   speedKmh: z.number().min(3).max(90).optional(),
   detourFactor: z.number().min(1).max(3).optional(),
 })
@@ -79,7 +97,9 @@ export const crewList = z.object({
       depotLng: z.number(),
       shiftStart: z.string(),
       shiftEnd: z.string(),
-      platform: z.object({ id: z.number(), name: z.string(), assetTag: z.string(), workingHeightM: z.number() }).nullable(),
+      platform: z
+        .object({ id: z.number(), name: z.string(), assetTag: z.string(), workingHeightM: z.number() })
+        .nullable(),
       members: z.array(z.object({ id: z.number(), name: z.string(), email: z.string() })),
     }),
   ),

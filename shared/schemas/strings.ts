@@ -8,7 +8,10 @@ export const bboxQuery = z.object({
     .string()
     .regex(/^-?\d+(\.\d+)?(,-?\d+(\.\d+)?){3}$/, 'bbox is minLng,minLat,maxLng,maxLat')
     .transform((s) => s.split(',').map(Number) as [number, number, number, number])
-    .refine(([a, b, c, d]) => a <= c && b <= d && b >= -90 && d <= 90, 'bbox corners are out of order or range')
+    .refine(
+      ([a, b, c, d]) => a <= c && b <= d && b >= -90 && d <= 90,
+      'bbox corners are out of order or range',
+    )
     .optional(),
   q: z.string().trim().max(80).optional(),
   status: statusSchema.optional(),
@@ -62,17 +65,46 @@ export const stringDetail = z.object({
     replaceAtRatio: z.number(),
     shuntFailProbability: z.number(),
     classes: z.array(
-      z.object({ label: z.string(), count: z.number(), ratedVolts: z.number(), ratedAmps: z.number(), shunted: z.boolean() }),
+      z.object({
+        label: z.string(),
+        count: z.number(),
+        ratedVolts: z.number(),
+        ratedAmps: z.number(),
+        shunted: z.boolean(),
+      }),
     ),
   }),
-  site: z.object({ id: z.number(), name: z.string(), clientId: z.number(), clientName: z.string(), accessNote: z.string().nullable() }),
+  site: z.object({
+    id: z.number(),
+    name: z.string(),
+    clientId: z.number(),
+    clientName: z.string(),
+    accessNote: z.string().nullable(),
+  }),
   schedule: z.object({ switchOn: z.string(), switchOff: z.string(), burnHoursPerDay: z.number() }),
   circuit: z
-    .object({ id: z.number(), ref: z.string(), breakerAmps: z.number(), breakerCurve: z.string(), rcdMa: z.number().nullable(), supplyPoint: z.string(), supplyPointRef: z.string() })
+    .object({
+      id: z.number(),
+      ref: z.string(),
+      breakerAmps: z.number(),
+      breakerCurve: z.string(),
+      rcdMa: z.number().nullable(),
+      supplyPoint: z.string(),
+      supplyPointRef: z.string(),
+    })
     .nullable(),
-  structure: z.object({ id: z.number(), kind: z.string(), ref: z.string(), approvedLoad: z.string().nullable() }).nullable(),
+  structure: z
+    .object({ id: z.number(), kind: z.string(), ref: z.string(), approvedLoad: z.string().nullable() })
+    .nullable(),
   certificates: z.array(
-    z.object({ id: z.number(), kind: z.string(), reference: z.string().nullable(), doneOn: z.string(), nextDue: z.string().nullable(), result: z.string() }),
+    z.object({
+      id: z.number(),
+      kind: z.string(),
+      reference: z.string().nullable(),
+      doneOn: z.string(),
+      nextDue: z.string().nullable(),
+      result: z.string(),
+    }),
   ),
   assessment: z.unknown(),
   forecast: z.unknown(),

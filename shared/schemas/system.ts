@@ -7,7 +7,12 @@ export const clientConfig = z.object({
   demoMode: z.boolean(),
   demoAccounts: z.array(z.object({ email: z.string(), role: roleSchema, name: z.string() })),
   demoPassword: z.string().nullable(),
-  tiles: z.object({ url: z.string().nullable(), attribution: z.string(), maxZoom: z.number(), local: z.boolean() }),
+  tiles: z.object({
+    url: z.string().nullable(),
+    attribution: z.string(),
+    maxZoom: z.number(),
+    local: z.boolean(),
+  }),
   mailOutbox: z.boolean(),
 })
 export const mailList = z.object({

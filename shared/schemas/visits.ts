@@ -3,7 +3,14 @@ import { statusSchema } from './strings'
 
 // Safe-isolation steps before work (Electricity at Work Regulations 1989 regs 12–14; HSE HSG85;
 // testers to HSE GS38), then the steps that hand the string back.
-export const isolateSteps = ['identify', 'isolate', 'lock_off', 'prove_tester', 'test_dead', 'reprove_tester'] as const
+export const isolateSteps = [
+  'identify',
+  'isolate',
+  'lock_off',
+  'prove_tester',
+  'test_dead',
+  'reprove_tester',
+] as const
 export const restoreSteps = ['remove_lock', 're_energise', 'functional_check', 'rcd_test'] as const
 export const isolationSteps = [...isolateSteps, ...restoreSteps] as const
 export type IsolationStep = (typeof isolationSteps)[number]
@@ -21,7 +28,12 @@ export const stepLabel: Record<IsolationStep, string> = {
   rcd_test: 'RCD test button',
 }
 
-export const idempotencyKey = z.string().trim().min(8).max(64).regex(/^[\w-]+$/, 'Use a UUID.')
+export const idempotencyKey = z
+  .string()
+  .trim()
+  .min(8)
+  .max(64)
+  .regex(/^[\w-]+$/, 'Use a UUID.')
 
 export const isolationBody = z.object({
   stringId: z.number().int().positive(),
@@ -73,7 +85,10 @@ export const visitBody = z
     lat: z.number().min(-90).max(90).optional(),
     lng: z.number().min(-180).max(180).optional(),
   })
-  .refine((v) => !(v.isolationId && v.isolationKey), { message: 'Give isolationId or isolationKey, not both.', path: ['isolationKey'] })
+  .refine((v) => !(v.isolationId && v.isolationKey), {
+    message: 'Give isolationId or isolationKey, not both.',
+    path: ['isolationKey'],
+  })
 export type VisitBody = z.infer<typeof visitBody>
 
 export const visitResult = z.object({

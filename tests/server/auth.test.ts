@@ -11,28 +11,39 @@ beforeAll(async () => {
 afterAll(() => t.close())
 
 describe('sign-in and sessions', () => {
-  it.each(roles)('signs in the demo %s account and returns the user and a token in body and cookie', async (role) => {
-    const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email: `${role}@example.org`, password: 'lampwright' })
-    expect(res.status).toBe(200)
-    expect(res.body.user).toMatchObject({ email: `${role}@example.org`, role })
-    expect(typeof res.body.token).toBe('string')
-    const cookie = String(res.headers['set-cookie'])
-    expect(cookie).toMatch(/lw_session=/)
-    expect(cookie).toMatch(/HttpOnly/)
-    expect(cookie).toMatch(/SameSite=Lax/)
-    expect(roleHome[role]).toMatch(/^\//)
-  })
+  it.each(roles)(
+    'signs in the demo %s account and returns the user and a token in body and cookie',
+    async (role) => {
+      const res = await request(t.app)
+        .post('/api/v1/auth/sign-in')
+        .send({ email: `${role}@example.org`, password: 'lampwright' })
+      expect(res.status).toBe(200)
+      expect(res.body.user).toMatchObject({ email: `${role}@example.org`, role })
+      expect(typeof res.body.token).toBe('string')
+      const cookie = String(res.headers['set-cookie'])
+      expect(cookie).toMatch(/lw_session=/)
+      expect(cookie).toMatch(/HttpOnly/)
+      expect(cookie).toMatch(/SameSite=Lax/)
+      expect(roleHome[role]).toMatch(/^\//)
+    },
+  )
 
   it('accepts the cookie and the Bearer header alike', async () => {
-    const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email: 'crew@example.org', password: 'lampwright' })
+    const res = await request(t.app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: 'crew@example.org', password: 'lampwright' })
     const byCookie = await request(t.app).get('/api/v1/auth/me').set('Cookie', res.headers['set-cookie'])
-    const byBearer = await request(t.app).get('/api/v1/auth/me').set('Authorization', `Bearer ${res.body.token}`)
+    const byBearer = await request(t.app)
+      .get('/api/v1/auth/me')
+      .set('Authorization', `Bearer ${res.body.token}`)
     expect(byCookie.body.user.role).toBe('crew')
     expect(byBearer.body.user.role).toBe('crew')
   })
 
   it('answers wrong credentials with 401 invalid_credentials and no token with 401 unauthenticated', async () => {
-    const bad = await request(t.app).post('/api/v1/auth/sign-in').send({ email: 'crew@example.org', password: 'wrong' })
+    const bad = await request(t.app)
+      .post('/api/v1/auth/sign-in')
+      .send({ email: 'crew@example.org', password: 'wrong' })
     expect(bad.status).toBe(401)
     expect(bad.body.error.code).toBe('invalid_credentials')
     const none = await request(t.app).get('/api/v1/auth/me')
@@ -43,7 +54,9 @@ describe('sign-in and sessions', () => {
   })
 
   it('answers the wrong role with 403 forbidden', async () => {
-    const res = await request(t.app).get('/api/v1/users').set('Authorization', `Bearer ${await t.token('crew')}`)
+    const res = await request(t.app)
+      .get('/api/v1/users')
+      .set('Authorization', `Bearer ${await t.token('crew')}`)
     expect(res.status).toBe(403)
     expect(res.body.error.code).toBe('forbidden')
   })
@@ -52,7 +65,11 @@ describe('sign-in and sessions', () => {
     const email = 'safety@example.org'
     let last = 0
     for (let i = 0; i < 11; i++) {
-      last = (await request(t.app).post('/api/v1/auth/sign-in').send({ email, password: `guess-${i}` })).status
+      last = (
+        await request(t.app)
+          .post('/api/v1/auth/sign-in')
+          .send({ email, password: `guess-${i}` })
+      ).status
     }
     expect(last).toBe(429)
     const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email, password: 'lampwright' })
@@ -78,7 +95,10 @@ describe('inviting users', () => {
   it('invites by e-mail through the mail fake, lets the invitee set a password, and sign in', async () => {
     const admin = `Bearer ${await t.token('admin')}`
     const email = `new.crew.${Date.now()}@example.org`
-    const res = await request(t.app).post('/api/v1/users').set('Authorization', admin).send({ name: 'Ffion Aldous', email, role: 'crew' })
+    const res = await request(t.app)
+      .post('/api/v1/users')
+      .set('Authorization', admin)
+      .send({ name: 'Ffion Aldous', email, role: 'crew' })
     expect(res.status).toBe(201)
     let mail: { text: string } | undefined
     for (let i = 0; i < 50 && !mail; i++) {
@@ -87,24 +107,40 @@ describe('inviting users', () => {
     }
     expect(mail).toBeDefined()
     const token = /token=([\w-]+)/.exec(mail!.text)![1]
-    const accepted = await request(t.app).post('/api/v1/auth/accept-invite').send({ token, password: 'a-long-enough-password' })
+    const accepted = await request(t.app)
+      .post('/api/v1/auth/accept-invite')
+      .send({ token, password: 'a-long-enough-password' })
     expect(accepted.status).toBe(200)
     expect(accepted.body.user.role).toBe('crew')
-    const again = await request(t.app).post('/api/v1/auth/accept-invite').send({ token, password: 'a-long-enough-password' })
+    const again = await request(t.app)
+      .post('/api/v1/auth/accept-invite')
+      .send({ token, password: 'a-long-enough-password' })
     expect(again.body.error.code).toBe('invalid_invite')
-    const dup = await request(t.app).post('/api/v1/users').set('Authorization', admin).send({ name: 'X', email, role: 'crew' })
+    const dup = await request(t.app)
+      .post('/api/v1/users')
+      .set('Authorization', admin)
+      .send({ name: 'X', email, role: 'crew' })
     expect(dup.body.error.code).toBe('email_taken')
   })
 
   it('deactivates a user, whose token then stops working', async () => {
     const admin = `Bearer ${await t.token('admin')}`
     const email = `leaver.${Date.now()}@example.org`
-    const created = await request(t.app).post('/api/v1/users').set('Authorization', admin).send({ name: 'Leaver', email, role: 'manager' })
+    const created = await request(t.app)
+      .post('/api/v1/users')
+      .set('Authorization', admin)
+      .send({ name: 'Leaver', email, role: 'manager' })
     const id = created.body.user.id
-    const off = await request(t.app).patch(`/api/v1/users/${id}`).set('Authorization', admin).send({ active: false })
+    const off = await request(t.app)
+      .patch(`/api/v1/users/${id}`)
+      .set('Authorization', admin)
+      .send({ active: false })
     expect(off.body.user.active).toBe(false)
     const self = await t.db('users').where({ email: 'admin@example.org' }).first('id')
-    const demote = await request(t.app).patch(`/api/v1/users/${self.id}`).set('Authorization', admin).send({ role: 'crew' })
+    const demote = await request(t.app)
+      .patch(`/api/v1/users/${self.id}`)
+      .set('Authorization', admin)
+      .send({ role: 'crew' })
     expect(demote.body.error.code).toBe('cannot_demote_self')
   })
 })

@@ -19,11 +19,18 @@ export interface TestApp {
 
 export async function makeTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const config = loadConfig({ ...process.env, SMTP_URL: '', ...env })
-  if (!config.DATABASE_URL) throw new Error('Run the server tests through npm test (DATABASE_URL is not set).')
+  if (!config.DATABASE_URL)
+    throw new Error('Run the server tests through npm test (DATABASE_URL is not set).')
   const db = createDb(config.DATABASE_URL)
   const fake = await startFakeSmtp(db, 0)
   const mailer = createMailer(db, createTransport(undefined, fake.port), config.MAIL_FROM)
-  const deps: AppDeps = { db, config, jwtSecret: 'test-secret-that-is-long-enough-0123456789', mailer, uploadDir: 'uploads/test' }
+  const deps: AppDeps = {
+    db,
+    config,
+    jwtSecret: 'test-secret-that-is-long-enough-0123456789',
+    mailer,
+    uploadDir: 'uploads/test',
+  }
   const app = createApp(deps, { clientDir: '/nonexistent' })
   const tokens = new Map<Role, string>()
   return {
@@ -32,7 +39,9 @@ export async function makeTestApp(env: Record<string, string> = {}): Promise<Tes
     deps,
     async token(role) {
       if (!tokens.has(role)) {
-        const res = await request(app).post('/api/v1/auth/sign-in').send({ email: `${role}@example.org`, password: 'lampwright' })
+        const res = await request(app)
+          .post('/api/v1/auth/sign-in')
+          .send({ email: `${role}@example.org`, password: 'lampwright' })
         if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status}`)
         tokens.set(role, res.body.token)
       }

@@ -35,7 +35,10 @@ describe('plumbing', () => {
   })
 
   it('never sends a stack trace; bad JSON is a 400 with a code', async () => {
-    const res = await request(t.app).post('/api/v1/auth/sign-in').set('Content-Type', 'application/json').send('{"email":')
+    const res = await request(t.app)
+      .post('/api/v1/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('{"email":')
     expect(res.status).toBe(400)
     expect(res.body.error.code).toBe('invalid_json')
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts:\d+/)
@@ -65,14 +68,17 @@ describe('OpenAPI document', () => {
   it('has no route that Express answers but the document omits', async () => {
     const doc = (await request(t.app).get('/api/v1/openapi.json')).body
     const documented = new Set(
-      Object.entries(doc.paths as Record<string, object>).flatMap(([p, ops]) => Object.keys(ops).map((m) => `${m} ${p}`)),
+      Object.entries(doc.paths as Record<string, object>).flatMap(([p, ops]) =>
+        Object.keys(ops).map((m) => `${m} ${p}`),
+      ),
     )
     // Walk Express's own router: every route it mounted under /api/v1 must be in the document.
     type Layer = { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: Layer[] } }
     const mounted: string[] = []
     const walk = (stack: Layer[]) => {
       for (const l of stack) {
-        if (l.route) for (const m of Object.keys(l.route.methods)) mounted.push(`${m} ${openApiPath(l.route.path)}`)
+        if (l.route)
+          for (const m of Object.keys(l.route.methods)) mounted.push(`${m} ${openApiPath(l.route.path)}`)
         else if (l.handle?.stack) walk(l.handle.stack)
       }
     }

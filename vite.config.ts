@@ -16,11 +16,9 @@ export default defineConfig({
   test: {
     projects: [
       {
-        extends: false,
         test: { name: 'shared', include: ['tests/shared/**/*.test.ts'], environment: 'node' },
       },
       {
-        extends: false,
         test: {
           name: 'server',
           include: ['tests/server/**/*.test.ts'],
@@ -32,7 +30,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

@@ -10,6 +10,8 @@ import { engineRoutes } from './engine'
 import { queueRoutes } from './queue'
 import { routingRoutes } from './routing'
 import { runRoutes } from './runs'
+import { isolationRoutes } from './isolations'
+import { overdueRoutes } from './overdue'
 
 export const allRoutes: RouteDef[] = [
   ...systemRoutes,
@@ -22,4 +24,6 @@ export const allRoutes: RouteDef[] = [
   ...queueRoutes,
   ...routingRoutes,
   ...runRoutes,
+  ...isolationRoutes,
+  ...overdueRoutes,
 ]

@@ -1,0 +1,38 @@
+import { idParam } from '../../shared/schemas/common'
+import { isolationAuditList, isolationQuery, reviewBody } from '../../shared/schemas/isolations'
+import { defineRoute, type RouteDef } from '../route-table'
+import { listIsolationAudits, reviewIsolation } from '../services/isolation-audit'
+import { audit } from '../services/audit'
+
+export const isolationRoutes: RouteDef[] = [
+  defineRoute({
+    method: 'get',
+    path: '/isolations',
+    access: ['safety', 'supervisor', 'manager', 'admin'],
+    tag: 'safety',
+    summary: 'Isolation records with their steps and findings, for sign-off',
+    query: isolationQuery,
+    response: isolationAuditList,
+    handler: ({ deps, query }) => listIsolationAudits(deps.db, query),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/isolations/:id/review',
+    access: ['safety', 'admin'],
+    tag: 'safety',
+    summary: 'Approve or reject an isolation record',
+    params: idParam,
+    body: reviewBody,
+    handler: async ({ deps, params, body, user, req }) => {
+      await reviewIsolation(deps.db, params.id, user.id, body.decision, body.note)
+      await audit(deps.db, {
+        userId: user.id,
+        action: `isolation_${body.decision}`,
+        entity: 'isolation',
+        entityId: params.id,
+        details: body,
+        requestId: String(req.id),
+      })
+    },
+  }),
+]

@@ -1,0 +1,19 @@
+import type { z } from 'zod'
+import type { publicUser, sessionResponse } from '../../shared/schemas/auth'
+import { http } from './http'
+
+// Roles, their labels and home pages come from the shared table the server's guards also use.
+export { roles as ROLES, roleLabel as ROLE_LABELS, type Role } from '../../shared/roles'
+
+export type Id = number
+export type SessionUser = z.infer<typeof publicUser>
+export type SessionResponse = z.infer<typeof sessionResponse>
+
+export const authApi = {
+  me: () => http.get<{ user: SessionUser }>('/auth/me'),
+  signIn: (email: string, password: string) =>
+    http.post<SessionResponse>('/auth/sign-in', { email, password }),
+  signOut: () => http.post<void>('/auth/sign-out'),
+  acceptInvite: (token: string, password: string) =>
+    http.post<SessionResponse>('/auth/accept-invite', { token, password }),
+}

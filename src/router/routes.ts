@@ -1,0 +1,112 @@
+import type { RouteRecordRaw, RouteRecordSingleView } from 'vue-router'
+import { ROLES, type Role } from '../api/auth'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Who may open the route. Absent only on public routes (`public: true`). */
+    roles?: readonly Role[]
+    /** Reachable without an account (sign-in, invitations, public fault reports). */
+    public?: boolean
+    /** Shown only when the server runs in demo mode with its mail fake. */
+    demoOnly?: boolean
+    /** Page title in the header and the browser tab. */
+    title?: string
+  }
+}
+
+const EVERY_ROLE = ROLES
+
+// Each page is loaded on first visit so a crew phone on weak signal downloads only its own screens.
+const privateRoutes: RouteRecordRaw[] = [
+  // The guard sends `/` to the signed-in user's own home before anything renders.
+  { path: '', name: 'home', component: { render: () => null }, meta: { roles: EVERY_ROLE } },
+
+  // crew
+  route('/run', 'run', "Tonight's run", ['crew'], () => import('../pages/run/RunPage.vue')),
+  route('/map', 'map', 'Map', ['crew', 'supervisor', 'manager'], () => import('../pages/map/MapPage.vue')),
+  route('/outbox', 'outbox', 'Outbox', ['crew'], () => import('../pages/outbox/OutboxPage.vue')),
+  route(
+    '/calculator',
+    'calculator',
+    'Calculator',
+    [...EVERY_ROLE],
+    () => import('../pages/calculator/CalculatorPage.vue'),
+  ),
+
+  // strings, visits and labels
+  route('/strings/:id', 'string', 'String', [...EVERY_ROLE], () => import('../pages/string/StringPage.vue')),
+  route('/strings/:id/visit', 'log-visit', 'Log a visit', ['crew', 'supervisor'], () => import('../pages/visit/LogVisitPage.vue')),
+  route('/scan', 'scan', 'Scan a label', ['crew', 'supervisor'], () => import('../pages/scan/ScanPage.vue')),
+  route('/runs/print', 'run-sheet', 'Run sheet', ['crew', 'supervisor', 'manager'], () => import('../pages/plan/RunSheetPage.vue')),
+
+  // supervisor
+  route('/queue', 'queue', 'Queue', ['supervisor'], () => import('../pages/queue/QueuePage.vue')),
+  route('/plan', 'plan', 'Plan runs', ['supervisor'], () => import('../pages/plan/PlanPage.vue')),
+  route('/crews', 'crews', 'Crews & platforms', ['supervisor'], () => import('../pages/crews/CrewsPage.vue')),
+
+  // manager
+  route('/overdue', 'overdue', 'Overdue', ['manager'], () => import('../pages/overdue/OverduePage.vue')),
+  route('/register', 'register', 'Register', ['manager'], () => import('../pages/register/RegisterPage.vue')),
+  route('/energy', 'energy', 'Energy', ['manager'], () => import('../pages/energy/EnergyPage.vue')),
+  route('/reports', 'reports', 'Reports', ['manager'], () => import('../pages/reports/ReportsPage.vue')),
+
+  // safety officer
+  route(
+    '/isolations',
+    'isolations',
+    'Isolations',
+    ['safety'],
+    () => import('../pages/isolations/IsolationsPage.vue'),
+  ),
+  route(
+    '/certificates',
+    'certificates',
+    'Certificates',
+    ['safety'],
+    () => import('../pages/certificates/CertificatesPage.vue'),
+  ),
+
+  // admin
+  route('/users', 'users', 'Users', ['admin'], () => import('../pages/users/UsersPage.vue')),
+  route('/settings', 'settings', 'Settings', ['admin'], () => import('../pages/settings/SettingsPage.vue')),
+
+  // demo mode: the local mail fake's catch
+  {
+    path: '/mail/:id?',
+    name: 'mail',
+    component: () => import('../pages/mail/MailPage.vue'),
+    meta: { title: 'Mail outbox', roles: EVERY_ROLE, demoOnly: true },
+  },
+]
+
+const publicRoutes: RouteRecordRaw[] = [
+  publicRoute('/sign-in', 'sign-in', 'Sign in', () => import('../pages/auth/SignInPage.vue')),
+  publicRoute(
+    '/accept-invite',
+    'accept-invite',
+    'Accept invitation',
+    () => import('../pages/auth/AcceptInvitePage.vue'),
+  ),
+  publicRoute('/report', 'report', 'Report a fault', () => import('../pages/report/ReportFaultPage.vue')),
+]
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/', component: () => import('../layouts/MainLayout.vue'), children: privateRoutes },
+  { path: '/', component: () => import('../layouts/PublicLayout.vue'), children: publicRoutes },
+  {
+    path: '/:pathMatch(.*)*',
+    component: () => import('../layouts/PublicLayout.vue'),
+    children: [{ path: '', name: 'not-found', component: () => import('../pages/NotFoundPage.vue') }],
+    meta: { public: true, title: 'Not found' },
+  },
+]
+
+type Loader = RouteRecordSingleView['component']
+
+function route(path: string, name: string, title: string, roles: Role[], component: Loader): RouteRecordRaw {
+  return { path, name, component, meta: { title, roles } }
+}
+
+function publicRoute(path: string, name: string, title: string, component: Loader): RouteRecordRaw {
+  return { path, name, component, meta: { title, public: true } }
+}

@@ -1,0 +1,40 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import { configApi, type AppConfig } from '../api/config'
+
+const FALLBACK: AppConfig = {
+  appName: 'Lampwright',
+  demoMode: false,
+  demoAccounts: [],
+  demoPassword: null,
+  tiles: { url: null, attribution: '', maxZoom: 20, local: true },
+  mailOutbox: false,
+}
+
+// Public server settings (demo mode, map tiles, mail fake), fetched once per page load.
+export const useAppConfigStore = defineStore('app-config', () => {
+  const config = ref<AppConfig>(FALLBACK)
+  const loaded = ref(false)
+  let pending: Promise<void> | null = null
+
+  const appName = computed(() => config.value.appName || 'Lampwright')
+  const showMail = computed(() => config.value.demoMode && config.value.mailOutbox)
+
+  async function fetchConfig(): Promise<void> {
+    try {
+      config.value = { ...FALLBACK, ...(await configApi.get()) }
+    } catch {
+      // Without config the app still works; demo helpers simply stay hidden.
+      pending = null
+    } finally {
+      loaded.value = true
+    }
+  }
+
+  function ensureLoaded(): Promise<void> {
+    pending ??= fetchConfig()
+    return pending
+  }
+
+  return { config, loaded, appName, showMail, ensureLoaded }
+})

@@ -26,7 +26,14 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['**/src/**', '**/server/**', 'express', 'knex', 'vue', 'quasar'], message: 'shared/ must not import client or server code' }] },
+        {
+          patterns: [
+            {
+              group: ['**/src/**', '**/server/**', 'express', 'knex', 'vue', 'quasar'],
+              message: 'shared/ must not import client or server code',
+            },
+          ],
+        },
       ],
     },
   },

@@ -90,7 +90,8 @@ export async function seedDemo(db: Db, now: Date) {
       lng: p.lng,
       line: p.line ? JSON.stringify(p.line) : null,
       installedOn: new Date(now.getTime() - (40 + r.int(0, 10)) * 86_400_000).toISOString().slice(0, 10),
-      lampAgeHours: filament ? r.int(0, 600) : r.int(0, 8000),
+      // A few strings carry last season's lamps, near their rated life: the forecast should notice.
+      lampAgeHours: filament ? (r.chance(0.03) ? r.int(1300, 1500) : r.int(0, 600)) : r.int(0, 8000),
       lampsOut: cond.lampsOut,
       fuseFailed: cond.fuseFailed,
       dark: !result.lit,

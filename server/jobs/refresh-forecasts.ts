@@ -35,6 +35,7 @@ export async function refreshForecasts(db: Db, now = new Date()) {
     siteId: number
     clientId: number
     pDark72: number
+    burnHoursPerDay: number
   }[] = []
   const updates: { id: number; at: Date | null }[] = []
   for (const r of rows) {
@@ -58,10 +59,19 @@ export async function refreshForecasts(db: Db, now = new Date()) {
       siteId: r.siteId,
       clientId: r.clientId,
       pDark72: p72,
+      burnHoursPerDay: burn,
     })
     const median = fc.dates?.medianDark
     updates.push({ id: r.id, at: median ? new Date(`${median}T${r.switchOn}:00Z`) : null })
   }
-  for (const u of updates) await db('strings').where({ id: u.id }).update({ forecastDarkAt: u.at })
+  // One statement per 200 strings rather than one per string.
+  for (let i = 0; i < updates.length; i += 200) {
+    const chunk = updates.slice(i, i + 200)
+    const cases = chunk.map(() => 'when ? then ?').join(' ')
+    await db.raw(
+      `update strings set forecast_dark_at = case id ${cases} end where id in (${chunk.map(() => '?').join(',')})`,
+      [...chunk.flatMap((u) => [u.id, u.at]), ...chunk.map((u) => u.id)],
+    )
+  }
   return out
 }

@@ -1,5 +1,5 @@
 // Rebuilds the work queue from the state of every string, report and certificate. Safe to run at
-// any time (open items are keyed, so nothing is opened twice); npm start runs it every 10 minutes.
+// any time (open items are keyed, so nothing is opened twice); the server runs it every 10 minutes.
 import type { Db } from '../db'
 import { openItem, syncStringQueue } from '../services/queue-sync'
 import { refreshForecasts } from './refresh-forecasts'
@@ -10,36 +10,41 @@ export const CERTIFICATE_LEAD_DAYS = 14
 /** Forecast risk that opens an item: the string may go dark within 72 burning hours. */
 export const FORECAST_DARK_P72 = 0.25
 
+const openCount = async (db: Db) =>
+  Number((await db('queueItems').where('state', 'open').count({ n: '*' }))[0].n)
+
 export async function refreshQueue(db: Db, now = new Date()) {
-  const before = Number((await db('queueItems').where('state', 'open').count({ n: '*' }))[0].n)
+  const before = await openCount(db)
   // Wake snoozed items whose time has come.
   await db('queueItems')
     .where('state', 'snoozed')
     .where('snoozedUntil', '<=', now)
     .update({ state: 'open', snoozedUntil: null })
+  for (const s of await db('strings').whereIn('status', ['replace', 'dark']).select('id'))
+    await syncStringQueue(db, s.id, null, now)
+  await refreshForecastItems(db, now)
+  await refreshReportItems(db, now)
+  await refreshCertificateItems(db, now)
+  const after = await openCount(db)
+  return { opened: Math.max(0, after - before), open: after }
+}
 
-  const strings = await db('strings').whereIn('status', ['replace', 'dark']).select('id')
-  for (const s of strings) await syncStringQueue(db, s.id, null, now)
-
-  const risky = await refreshForecasts(db, now)
-  for (const r of risky) {
+async function refreshForecastItems(db: Db, now: Date) {
+  for (const r of await refreshForecasts(db, now)) {
     // Dark, made-safe and replace-now strings are in the queue already under their own kind.
     if (r.pDark72 < FORECAST_DARK_P72 || (r.status !== 'lit' && r.status !== 'watch')) continue
+    const nights = Math.round(72 / r.burnHoursPerDay)
+    const summary = `${r.assetTag} may go dark within about ${nights} nights (${Math.round(r.pDark72 * 100)} % chance)`
+    const base = { stringId: r.id, siteId: r.siteId, clientId: r.clientId }
     await openItem(
       db,
-      {
-        kind: 'forecast_dark',
-        subject: `string:${r.id}`,
-        severity: 'standard',
-        stringId: r.id,
-        siteId: r.siteId,
-        clientId: r.clientId,
-        summary: `${r.assetTag} may go dark within 3 nights (${Math.round(r.pDark72 * 100)} %)`,
-      },
+      { ...base, kind: 'forecast_dark', subject: `string:${r.id}`, severity: 'standard', summary },
       now,
     )
   }
+}
 
+export async function refreshReportItems(db: Db, now: Date) {
   // A report without a tag is placed by the street the reporter named.
   const reports = await db('reports as r')
     .leftJoin('strings as s', 's.id', 'r.stringId')
@@ -52,11 +57,12 @@ export async function refreshQueue(db: Db, now = new Date()) {
       'r.streetText',
       'r.createdAt',
       'r.stringId',
-      's.siteId',
+      'si.id as siteId',
       'si.clientId',
     )
   const defaultClient = (await db('clients').orderBy('id').first('id'))?.id ?? null
   for (const r of reports) {
+    const what = r.hazard ? 'hazard reported' : 'fault reported'
     await openItem(
       db,
       {
@@ -68,7 +74,7 @@ export async function refreshQueue(db: Db, now = new Date()) {
         siteId: r.siteId ?? null,
         clientId: r.clientId ?? defaultClient,
         openedAt: new Date(r.createdAt),
-        summary: `${r.ref}: ${r.hazard ? 'hazard reported' : 'fault reported'} on ${r.streetText ?? 'unknown street'}`,
+        summary: `${r.ref}: ${what} on ${r.streetText ?? 'unknown street'}`,
       },
       now,
     )
@@ -78,8 +84,10 @@ export async function refreshQueue(db: Db, now = new Date()) {
     .whereIn('state', ['open', 'snoozed'])
     .whereIn('reportId', db('reports').whereNotIn('state', ['received', 'in_hand']).select('id'))
     .update({ state: 'closed', openKey: null, closedAt: now })
+}
 
-  // The newest certificate of each kind per subject decides whether something is due.
+/** Opens items for certificates falling due and failed RCD tests; closes those a newer record settled. */
+export async function refreshCertificateItems(db: Db, now: Date) {
   const certs = await db('certificates as c')
     .whereRaw(
       'c.id = (select max(c2.id) from certificates c2 where c2.kind = c.kind and c2.subject_type = c.subject_type and c2.subject_id = c.subject_id)',
@@ -87,39 +95,50 @@ export async function refreshQueue(db: Db, now = new Date()) {
     .select('c.id', 'c.kind', 'c.subjectType', 'c.subjectId', 'c.reference', 'c.nextDue', 'c.result')
   const soon = new Date(now.getTime() + CERTIFICATE_LEAD_DAYS * DAY).toISOString().slice(0, 10)
   const places = await certificatePlaces(db)
+  const wanted = new Set<string>()
   for (const c of certs) {
-    const place = places.get(`${c.subjectType}:${c.subjectId}`) ?? { siteId: null, clientId: defaultClient }
+    const place = places.get(`${c.subjectType}:${c.subjectId}`) ?? { siteId: null, clientId: null }
+    const label = c.reference ?? `${c.subjectType} ${c.subjectId}`
     if (c.kind === 'rcd_test' && c.result === 'fail') {
+      const subject = `circuit-rcd:${c.subjectId}`
+      wanted.add(`rcd_failed:${subject}`)
       await openItem(
         db,
         {
           kind: 'rcd_failed',
-          subject: `certificate:${c.id}`,
+          subject,
           severity: 'emergency',
           certificateId: c.id,
           ...place,
-          summary: `RCD test failed: ${c.reference ?? c.subjectType + ' ' + c.subjectId}`,
+          summary: `RCD test failed: ${label}`,
         },
         now,
       )
     } else if (c.nextDue && c.nextDue <= soon) {
+      const subject = `certificate:${c.kind}:${c.subjectType}:${c.subjectId}`
+      wanted.add(`certificate_due:${subject}`)
       await openItem(
         db,
         {
           kind: 'certificate_due',
-          subject: `certificate:${c.kind}:${c.subjectType}:${c.subjectId}`,
+          subject,
           severity: 'standard',
           certificateId: c.id,
           ...place,
           dueBy: new Date(`${c.nextDue}T23:59:00Z`),
-          summary: `${c.reference ?? c.kind} due ${c.nextDue}`,
+          summary: `${label} due ${c.nextDue}`,
         },
         now,
       )
     }
   }
-  const after = Number((await db('queueItems').where('state', 'open').count({ n: '*' }))[0].n)
-  return { opened: Math.max(0, after - before), open: after }
+  const open = await db('queueItems')
+    .whereIn('kind', ['rcd_failed', 'certificate_due'])
+    .whereIn('state', ['open', 'snoozed'])
+    .select('id', 'openKey')
+  const settled = open.filter((i) => !wanted.has(i.openKey)).map((i) => i.id)
+  if (settled.length)
+    await db('queueItems').whereIn('id', settled).update({ state: 'closed', openKey: null, closedAt: now })
 }
 
 /** Where a certificate's subject stands: structures and circuits belong to a site; platforms to none. */

@@ -12,6 +12,7 @@ import { routingRoutes } from './routing'
 import { runRoutes } from './runs'
 import { isolationRoutes } from './isolations'
 import { overdueRoutes } from './overdue'
+import { certificateRoutes } from './certificates'
 
 export const allRoutes: RouteDef[] = [
   ...systemRoutes,
@@ -26,4 +27,5 @@ export const allRoutes: RouteDef[] = [
   ...runRoutes,
   ...isolationRoutes,
   ...overdueRoutes,
+  ...certificateRoutes,
 ]

@@ -1,0 +1,45 @@
+import {
+  certificateBody,
+  certificateCreated,
+  certificateList,
+  certificateQuery,
+} from '../../shared/schemas/certificates'
+import { defineRoute, type RouteDef } from '../route-table'
+import { listCertificates, recordCertificate } from '../services/certificates'
+import { refreshCertificateItems } from '../jobs/refresh-queue'
+import { audit } from '../services/audit'
+
+export const certificateRoutes: RouteDef[] = [
+  defineRoute({
+    method: 'get',
+    path: '/certificates',
+    access: ['safety', 'supervisor', 'manager', 'admin'],
+    tag: 'safety',
+    summary: 'Latest certificate per subject and kind, filtered by due state',
+    query: certificateQuery,
+    response: certificateList,
+    handler: async ({ deps, query }) => ({ items: await listCertificates(deps.db, query) }),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/certificates',
+    access: ['safety', 'admin'],
+    tag: 'safety',
+    summary: 'Record a test or inspection; RCD and insulation readings decide pass or fail',
+    body: certificateBody,
+    response: certificateCreated,
+    status: 201,
+    handler: async ({ deps, body, user }) => {
+      const created = await recordCertificate(deps.db, user.id, body)
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'certificate',
+        entity: 'certificate',
+        entityId: created.id,
+        details: { kind: body.kind, result: created.result },
+      })
+      await refreshCertificateItems(deps.db, new Date())
+      return created
+    },
+  }),
+]

@@ -1,0 +1,74 @@
+import { z } from 'zod'
+
+export const certificateKinds = [
+  'platform_exam',
+  'platform_pre_use',
+  'column_structural',
+  'anchor_test',
+  'display_inspection',
+  'rcd_test',
+  'insulation_test',
+] as const
+export const certificateKindLabel: Record<(typeof certificateKinds)[number], string> = {
+  platform_exam: 'Platform thorough examination',
+  platform_pre_use: 'Platform pre-use check',
+  column_structural: 'Column structural test',
+  anchor_test: 'Anchor load test',
+  display_inspection: 'Display in-service inspection',
+  rcd_test: 'RCD test',
+  insulation_test: 'Insulation resistance test',
+}
+export const subjectTypes = ['platform', 'structure', 'string', 'circuit'] as const
+
+export const certificateQuery = z.object({
+  kind: z.enum(certificateKinds).optional(),
+  due: z.enum(['overdue', 'soon', 'failed', 'all']).default('all'),
+  limit: z.coerce.number().int().min(1).max(2000).default(500),
+})
+
+export const certificateRow = z.object({
+  id: z.number(),
+  kind: z.enum(certificateKinds),
+  subjectType: z.enum(subjectTypes),
+  subjectId: z.number(),
+  subjectLabel: z.string(),
+  reference: z.string().nullable(),
+  doneOn: z.string(),
+  nextDue: z.string().nullable(),
+  result: z.enum(['pass', 'fail', 'advisory']),
+  inspector: z.string().nullable(),
+  readings: z.record(z.string(), z.unknown()).nullable(),
+  notes: z.string().nullable(),
+  daysToDue: z.number().nullable(),
+})
+export const certificateList = z.object({ items: z.array(certificateRow) })
+
+// RCD readings are checked against BS EN 61008-1 / 61009-1 and BS 7671 reg 415.1.1 (trade-reference §5);
+// insulation against BS 7671 Table 64.
+export const certificateBody = z.object({
+  kind: z.enum(certificateKinds),
+  subjectType: z.enum(subjectTypes),
+  subjectId: z.number().int().positive(),
+  reference: z.string().trim().max(60).optional(),
+  doneOn: z.iso.date(),
+  nextDue: z.iso.date().optional(),
+  inspector: z.string().trim().max(120).optional(),
+  readings: z
+    .object({
+      ratedMa: z.number().positive().max(3000).optional(),
+      tripMsAt1x: z.number().min(0).max(5000).optional(),
+      tripMsAt5x: z.number().min(0).max(5000).optional(),
+      testVolts: z.number().positive().max(5000).optional(),
+      megohms: z.number().min(0).max(100000).optional(),
+      proofLoadKn: z.number().min(0).max(1000).optional(),
+      safeWorkingLoadKg: z.number().min(0).max(10000).optional(),
+    })
+    .optional(),
+  result: z.enum(['pass', 'fail', 'advisory']).optional(),
+  notes: z.string().trim().max(1000).optional(),
+})
+export const certificateCreated = z.object({
+  id: z.number(),
+  result: z.enum(['pass', 'fail', 'advisory']),
+  reasons: z.array(z.string()),
+})

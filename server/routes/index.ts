@@ -13,6 +13,7 @@ import { runRoutes } from './runs'
 import { isolationRoutes } from './isolations'
 import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
+import { reportRoutes } from './reports'
 
 export const allRoutes: RouteDef[] = [
   ...systemRoutes,
@@ -28,4 +29,5 @@ export const allRoutes: RouteDef[] = [
   ...isolationRoutes,
   ...overdueRoutes,
   ...certificateRoutes,
+  ...reportRoutes,
 ]

@@ -1,7 +1,8 @@
 // Re-forecasts every lit string and stores the median date it goes dark, for the map and the queue.
 import type { Db } from '../db'
 import { burnHoursPerDay } from '../../shared/schedule'
-import { loadType, stringForecast } from '../services/strings'
+import { loadType } from '../services/strings'
+import { stringForecast } from '../services/string-engine'
 
 /** Fewer trials than the string page: enough for a queue threshold, fast for a whole town. */
 const JOB_TRIALS = 400
@@ -42,15 +43,7 @@ export async function refreshForecasts(db: Db, now = new Date()) {
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
     const type = types.get(r.typeId)!
     const burn = burnHoursPerDay(r.switchOn, r.switchOff)
-    const cond = {
-      id: r.id,
-      lampsOut: r.lampsOut,
-      fuseFailed: !!r.fuseFailed,
-      dark: !!r.dark,
-      isolated: !!r.isolated,
-      lampAgeHours: r.lampAgeHours,
-    }
-    const fc = stringForecast(type, cond, type.supplyVolts, burn, today, JOB_TRIALS)
+    const fc = stringForecast(type, r, burn, today, JOB_TRIALS)
     const p72 = fc.pDark.find((p) => p.hours === 72)?.p ?? 0
     out.push({
       id: r.id,

@@ -10,7 +10,8 @@ import {
 } from '../../shared/schemas/runs'
 import { defineRoute, type RouteDef } from '../route-table'
 import { loadCrews } from '../services/run-items'
-import { listRuns, proposePlan, publishRuns } from '../services/runs'
+import { proposePlan, publishRuns } from '../services/runs'
+import { listRuns } from '../services/run-list'
 import { audit } from '../services/audit'
 import { badRequest } from '../errors'
 

@@ -2,7 +2,8 @@ import { roles } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { bboxQuery, mapList, stringDetail, tagLookup, tagParam } from '../../shared/schemas/strings'
 import { defineRoute, type RouteDef } from '../route-table'
-import { findByTag, listForMap, stringDetail as loadDetail } from '../services/strings'
+import { findByTag, listForMap } from '../services/strings'
+import { stringDetail as loadDetail } from '../services/string-detail'
 
 export const stringRoutes: RouteDef[] = [
   defineRoute({

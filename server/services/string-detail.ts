@@ -1,0 +1,128 @@
+import type { Db } from '../db'
+import { notFound } from '../errors'
+import type { StringDetail } from '../../shared/schemas/strings'
+import { burnHoursPerDay } from '../../shared/schedule'
+import { photoUrls } from './photo-urls'
+import { loadType } from './strings'
+import { stringAssessment, stringForecast } from './string-engine'
+
+const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
+const parseLine = (v: unknown) =>
+  (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
+
+export async function stringDetail(db: Db, id: number, now = new Date()): Promise<StringDetail> {
+  const s = await db('strings').where({ id }).first()
+  if (!s) throw notFound('String')
+  const type = await loadType(db, s.typeId)
+  const site = await db('sites as si')
+    .join('clients as c', 'c.id', 'si.clientId')
+    .where('si.id', s.siteId)
+    .first(
+      'si.id',
+      'si.name',
+      'si.clientId',
+      'c.name as clientName',
+      'si.accessNote',
+      'c.switchOn',
+      'c.switchOff',
+    )
+  const circuit = s.circuitId
+    ? await db('circuits as ci')
+        .join('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
+        .where('ci.id', s.circuitId)
+        .first(
+          'ci.id',
+          'ci.ref',
+          'ci.breakerAmps',
+          'ci.breakerCurve',
+          'ci.rcdMa',
+          'ci.supplyVolts',
+          'sp.name as supplyPoint',
+          'sp.ref as supplyPointRef',
+        )
+    : null
+  const structure = s.structureId
+    ? await db('structures').where({ id: s.structureId }).first('id', 'kind', 'ref', 'approvedLoad')
+    : null
+  const certificates = await db('certificates')
+    .where((w) => {
+      w.where({ subjectType: 'string', subjectId: id })
+      if (structure) w.orWhere({ subjectType: 'structure', subjectId: structure.id })
+      if (circuit) w.orWhere({ subjectType: 'circuit', subjectId: circuit.id })
+    })
+    .orderBy('doneOn', 'desc')
+    .select('id', 'kind', 'reference', 'doneOn', 'nextDue', 'result')
+  const visits = await db('visits as v')
+    .join('users as u', 'u.id', 'v.userId')
+    .where('v.stringId', id)
+    .orderBy('v.visitedAt', 'desc')
+    .limit(50)
+    .select(
+      'v.id',
+      'v.visitedAt',
+      'u.name as by',
+      'v.failedFound',
+      'v.replaced',
+      'v.fuseReplaced',
+      'v.darkOnArrival',
+      'v.statusAfter',
+      'v.notes',
+      'v.isolationId',
+    )
+  const photos = visits.length
+    ? await db('photos')
+        .whereIn(
+          'visitId',
+          visits.map((v) => v.id),
+        )
+        .select('id', 'visitId')
+    : []
+  const burn = burnHoursPerDay(site.switchOn, site.switchOff)
+  const assessment = stringAssessment(type, s)
+  const fc = stringForecast(type, s, burn, now.toISOString().slice(0, 10))
+  return {
+    id: s.id,
+    assetTag: s.assetTag,
+    name: s.name,
+    status: s.status,
+    lampsOut: s.lampsOut,
+    fuseFailed: !!s.fuseFailed,
+    dark: !!s.dark,
+    isolated: !!s.isolated,
+    replaceNow: !!s.replaceNow,
+    lat: s.lat,
+    lng: s.lng,
+    line: parseLine(s.line),
+    installedOn: s.installedOn ?? null,
+    lampAgeHours: s.lampAgeHours,
+    lastVisitAt: iso(s.lastVisitAt),
+    type,
+    site: {
+      id: site.id,
+      name: site.name,
+      clientId: site.clientId,
+      clientName: site.clientName,
+      accessNote: site.accessNote ?? null,
+    },
+    schedule: { switchOn: site.switchOn, switchOff: site.switchOff, burnHoursPerDay: burn },
+    circuit: circuit ? { ...circuit, rcdMa: circuit.rcdMa ?? null } : null,
+    structure: structure ? { ...structure, approvedLoad: structure.approvedLoad ?? null } : null,
+    certificates: certificates.map((c) => ({
+      ...c,
+      reference: c.reference ?? null,
+      nextDue: c.nextDue ?? null,
+    })),
+    assessment,
+    forecast: fc,
+    forecastDates: { firstFailure: fc.dates?.failures[0] ?? null, dark: fc.dates?.medianDark ?? null },
+    visits: visits.map((v) => ({
+      ...v,
+      visitedAt: iso(v.visitedAt)!,
+      fuseReplaced: !!v.fuseReplaced,
+      darkOnArrival: !!v.darkOnArrival,
+      notes: v.notes ?? null,
+      isolationId: v.isolationId ?? null,
+      photos: photos.filter((p) => p.visitId === v.id).map((p) => ({ id: p.id, ...photoUrls(p.id) })),
+    })),
+  }
+}

@@ -1,0 +1,44 @@
+// The engine applied to a string as recorded: its condition, assessment and forecast.
+import { engineInput } from '../../shared/string-status'
+import { forecast } from '../../shared/engine/forecast'
+import { assess } from '../../shared/engine/assess'
+import type { StringType } from './strings'
+
+export interface StringRecord {
+  id: number
+  lampsOut: number
+  fuseFailed: number | boolean
+  dark: number | boolean
+  isolated: number | boolean
+  lampAgeHours: number
+}
+
+export function conditionOf(s: StringRecord) {
+  return { lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated }
+}
+
+/** Assessed at the string's own design supply: a 24 V curtain hangs on a 230 V circuit through its driver. */
+export function stringAssessment(type: StringType, s: StringRecord) {
+  return assess(engineInput(type, conditionOf(s), type.supplyVolts))
+}
+
+/** The engine's forecast for a string as recorded now; seeded by the string's id so it is stable. */
+export function stringForecast(
+  type: StringType,
+  s: StringRecord,
+  burnHoursPerDay: number,
+  startDate: string,
+  trials = 2000,
+) {
+  return forecast({
+    ...engineInput(type, conditionOf(s), type.supplyVolts),
+    ratedLifeHours: type.ratedLifeHours,
+    weibullShape: type.weibullShape,
+    lampAgeHours: s.lampAgeHours,
+    shuntFailProbability: type.shuntFailProbability,
+    burnHoursPerDay,
+    startDate,
+    trials,
+    seed: s.id,
+  })
+}

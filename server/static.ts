@@ -1,8 +1,9 @@
 import express, { type Express } from 'express'
-import { join } from 'node:path'
+import { join, resolve } from 'node:path'
 
 /** Serves the built client: hashed assets cached for a year, every other path falls back to index.html. */
-export function serveClient(app: Express, dir: string): void {
+export function serveClient(app: Express, clientDir: string): void {
+  const dir = resolve(clientDir)
   app.use(
     '/assets',
     express.static(join(dir, 'assets'), { immutable: true, maxAge: '365d', fallthrough: false }),

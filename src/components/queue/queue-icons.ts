@@ -1,0 +1,28 @@
+// Icons of the supervisor screens (queue, plan, crews, run sheet), inline SVG from @quasar/extras
+// like src/icons.ts; kept here so the feature stays inside its own folders.
+export {
+  mdiAccountArrowRight as iconMoveToCrew,
+  mdiAccountGroupOutline as iconMembers,
+  mdiAlarmLightOutline as iconEmergency,
+  mdiAlarmSnooze as iconSnooze,
+  mdiAlertOutline as iconWarning,
+  mdiArrowDown as iconDown,
+  mdiArrowUp as iconUp,
+  mdiAutoFix as iconOptimise,
+  mdiCalendarClock as iconDue,
+  mdiCallMerge as iconMerge,
+  mdiCheckCircleOutline as iconCloseItem,
+  mdiClose as iconClear,
+  mdiDragVertical as iconDrag,
+  mdiElevator as iconPlatform,
+  mdiFileDocumentOutline as iconRunSheet,
+  mdiFilterVariant as iconFilter,
+  mdiHomeImportOutline as iconReturn,
+  mdiMapMarkerOff as iconNoPlace,
+  mdiOpenInNew as iconOpen,
+  mdiPin as iconPinned,
+  mdiPinOutline as iconPin,
+  mdiPrinterOutline as iconPrint,
+  mdiSendOutline as iconPublish,
+  mdiWarehouse as iconDepot,
+} from '@quasar/extras/mdi-v7'

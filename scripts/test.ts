@@ -6,8 +6,14 @@ import { openDatabase, prepareDatabase, buildClientIfStale } from './setup'
 const port = Number(process.env.DB_TEST_PORT ?? 3308)
 const db = await openDatabase({ dir: '.test-data', port, name: 'lampwright_test', fresh: true })
 let code = 0
-const run = (label: string, cmd: string, args: string[], env: NodeJS.ProcessEnv = process.env) => {
-  if (code !== 0) return
+const run = (
+  label: string,
+  cmd: string,
+  args: string[],
+  env: NodeJS.ProcessEnv = process.env,
+  always = false,
+) => {
+  if (code !== 0 && !always) return
   console.log(`\n▶ ${label}`)
   const r = spawnSync(cmd, args, { stdio: 'inherit', env })
   if (r.status !== 0) {
@@ -20,13 +26,26 @@ try {
   run('lint', 'npm', ['run', '--silent', 'lint'])
   run('type checks', 'npm', ['run', '--silent', 'typecheck'])
   if (code === 0) buildClientIfStale()
-  const extra = process.argv.slice(2)
-  run('tests', 'npx', ['vitest', 'run', ...extra], {
+  const env = {
     ...process.env,
     NODE_ENV: 'test',
     DATABASE_URL: db.url,
     JWT_SECRET: 'test-secret-that-is-long-enough-0123456789',
-  })
+  }
+  // One project at a time, each on freshly seeded demo data, so no suite sees another's writes.
+  const extra = process.argv.slice(2)
+  const projects = extra.length ? [null] : ['shared', 'server', 'e2e']
+  const ready = code === 0
+  for (const project of ready ? projects : []) {
+    if (project === 'e2e') await prepareDatabase(db.url, { seed: 'always' })
+    run(
+      project ? `tests: ${project}` : 'tests',
+      'npx',
+      ['vitest', 'run', ...(project ? ['--project', project] : extra)],
+      env,
+      true,
+    )
+  }
 } catch (err) {
   console.error(err)
   code = 1

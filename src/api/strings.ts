@@ -1,0 +1,38 @@
+import type { z } from 'zod'
+import type { mapItem, mapList, stringDetail, tagLookup } from '../../shared/schemas/strings'
+import type { basemap } from '../../shared/schemas/system'
+import type { AssessResponse, ForecastResponse } from '../../shared/schemas/engine'
+import { http } from './http'
+
+export type MapItem = z.infer<typeof mapItem>
+export type MapList = z.infer<typeof mapList>
+export type TagLookup = z.infer<typeof tagLookup>
+export type StringDetail = z.infer<typeof stringDetail>
+export type StringVisit = StringDetail['visits'][number]
+export type StringCertificate = StringDetail['certificates'][number]
+export type Basemap = z.infer<typeof basemap>
+export type BasemapFeature = Basemap['features'][number]
+/** minLng, minLat, maxLng, maxLat */
+export type Bbox = [number, number, number, number]
+
+// The schema leaves the engine's verdict untyped so the server may evolve it; the engine's own
+// response types describe what it sends today.
+export function assessmentOf(s: StringDetail): AssessResponse {
+  return s.assessment as AssessResponse
+}
+export function forecastOf(s: StringDetail): ForecastResponse {
+  return s.forecast as ForecastResponse
+}
+
+// Six decimals is about 0.1 m: finer only defeats the server's cache for no gain.
+const coord = (n: number) => n.toFixed(6)
+
+export const stringsApi = {
+  inBox: (bbox: Bbox, signal?: AbortSignal) =>
+    http.get<MapList>('/strings', { bbox: bbox.map(coord).join(',') }, signal),
+  search: (q: string, signal?: AbortSignal) => http.get<MapList>('/strings', { q, limit: 40 }, signal),
+  byTag: (tag: string) => http.get<TagLookup>(`/strings/by-tag/${encodeURIComponent(tag)}`),
+  get: (id: number | string) => http.get<StringDetail>(`/strings/${encodeURIComponent(String(id))}`),
+  // The demo town's own streets; drawn only when the server has no tile source configured.
+  basemap: () => http.get<Basemap>('/basemap'),
+}

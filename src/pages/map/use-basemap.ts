@@ -1,0 +1,22 @@
+import { computed, shallowRef } from 'vue'
+import { ApiError } from '../../api/http'
+import { stringsApi, type Basemap } from '../../api/strings'
+import { featureBounds } from '../../components/map/basemap-geometry'
+
+/** The demo town's drawn streets and the bounds the map first opens on. */
+export function useBasemap() {
+  const basemap = shallowRef<Basemap | null>(null)
+  const basemapError = shallowRef<ApiError | null>(null)
+  const townBounds = computed(() => (basemap.value ? featureBounds(basemap.value.features) : null))
+
+  async function loadBasemap(): Promise<void> {
+    basemapError.value = null
+    try {
+      basemap.value = await stringsApi.basemap()
+    } catch (err) {
+      basemapError.value = err instanceof ApiError ? err : new ApiError(0, 'client_error', String(err))
+    }
+  }
+
+  return { basemap, basemapError, townBounds, loadBasemap }
+}

@@ -94,6 +94,12 @@ function unassigned(items: PlanItem[], reasons: Map<number, UnassignedReason>): 
     .sort((a, b) => a - b)
     .map((x) => {
       const reason = reasons.get(x) as UnassignedReason
-      return { itemId: items[x].id, reason, message: MESSAGES[reason] }
+      const w = items[x].window
+      // A full day is usually a full access window: say which window, so the planner knows what to change.
+      const message =
+        reason === 'shift_full' && w
+          ? `Every suitable crew is already busy during its access window (${w.from}–${w.to}) with work of the same or higher priority.`
+          : MESSAGES[reason]
+      return { itemId: items[x].id, reason, message }
     })
 }

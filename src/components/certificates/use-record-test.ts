@@ -1,0 +1,137 @@
+import { computed, ref } from 'vue'
+import { isApiError } from '../../api/http'
+import { fieldProblems } from '../../api/public-reports'
+import {
+  certificateKindLabel,
+  certificatesApi,
+  type CertificateCreated,
+  type CertificateKind,
+  type CertificateRecord,
+} from '../../api/safety'
+import {
+  KINDS_FOR_SUBJECT,
+  RESULT_LABEL,
+  judgedByReadings,
+  parseReadings,
+  previewResult,
+  sameIntervalDue,
+  today,
+  type ReadingKey,
+  type Result,
+} from './certificate-format'
+
+/** The "Record new test" form: starts from a certificate row and saves a new test on its subject. */
+export function useRecordTest(base: () => CertificateRecord | null) {
+  const kind = ref<CertificateKind>('rcd_test')
+  const doneOn = ref(today())
+  const nextDue = ref('')
+  const typed = ref<Partial<Record<ReadingKey, string>>>({})
+  const result = ref<Result | null>(null)
+  const reference = ref('')
+  const inspector = ref('')
+  const notes = ref('')
+  const busy = ref(false)
+  const errorText = ref<string | null>(null)
+  const problems = ref<Record<string, string>>({})
+
+  const kindOptions = computed(() => {
+    const row = base()
+    return (row ? KINDS_FOR_SUBJECT[row.subjectType] : []).map((value) => ({
+      value,
+      label: certificateKindLabel[value],
+    }))
+  })
+  const resultOptions = (['pass', 'advisory', 'fail'] as const).map((value) => ({
+    value,
+    label: RESULT_LABEL[value],
+  }))
+  const parsed = computed(() => parseReadings(kind.value, typed.value))
+  const bad = computed(() => parsed.value.bad)
+  const judged = computed(() => previewResult(kind.value, parsed.value.readings))
+  const nextDueHint = computed(() => {
+    const row = base()
+    return row?.nextDue && row.kind === kind.value ? 'Set at the same interval as the last test' : undefined
+  })
+
+  // Same subject and kind as the row picked, with the earlier settings as a starting point.
+  function prepare(): void {
+    const row = base()
+    if (!row) return
+    kind.value = row.kind
+    doneOn.value = today()
+    nextDue.value = sameIntervalDue(row, doneOn.value)
+    const previous = (row.readings ?? {}) as Record<string, unknown>
+    // The settings of the test (rating, voltage) carry over; the measured values never do.
+    typed.value = {
+      ratedMa: String(previous.ratedMa ?? '30'),
+      testVolts: String(previous.testVolts ?? '500'),
+    }
+    result.value = null
+    reference.value = ''
+    inspector.value = row.inspector ?? ''
+    notes.value = ''
+    errorText.value = null
+    problems.value = {}
+  }
+
+  /** Saves and answers the server's result, or null when something needs fixing (what was typed stays). */
+  async function save(): Promise<CertificateCreated | null> {
+    const row = base()
+    if (!row || bad.value.length) return null
+    problems.value = {}
+    if (!judged.value && !result.value) {
+      problems.value = {
+        result: judgedByReadings(kind.value) ? 'Enter readings or choose a result.' : 'Choose a result.',
+      }
+      return null
+    }
+    const readings = parsed.value.readings
+    busy.value = true
+    errorText.value = null
+    try {
+      return await certificatesApi.record({
+        kind: kind.value,
+        subjectType: row.subjectType,
+        subjectId: row.subjectId,
+        doneOn: doneOn.value,
+        nextDue: nextDue.value || undefined,
+        readings: Object.keys(readings).length ? readings : undefined,
+        // Judged kinds get their result from the readings on the server, as in the preview.
+        result: judged.value ? undefined : (result.value ?? undefined),
+        reference: reference.value.trim() || undefined,
+        inspector: inspector.value.trim() || undefined,
+        notes: notes.value.trim() || undefined,
+      })
+    } catch (err) {
+      if (isApiError(err, 'validation_failed')) problems.value = fieldProblems(err.details)
+      const detail = Object.values(problems.value).join(' ')
+      errorText.value = isApiError(err)
+        ? `${err.message} ${detail}`.trim()
+        : 'The test was not saved. Try again.'
+      return null
+    } finally {
+      busy.value = false
+    }
+  }
+
+  return {
+    kind,
+    doneOn,
+    nextDue,
+    typed,
+    result,
+    reference,
+    inspector,
+    notes,
+    busy,
+    errorText,
+    problems,
+    kindOptions,
+    resultOptions,
+    bad,
+    judged,
+    nextDueHint,
+    prepare,
+    save,
+  }
+}

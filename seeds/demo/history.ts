@@ -38,28 +38,38 @@ export async function seedVisits(
       const found = s.shunted ? r.int(0, 3) : r.int(0, 1)
       const relamp = found > 0
       let isolationId: number | null = null
+      let noIsolationReason: string | null = null
       const at = new Date(t0)
-      if (relamp) {
+      // Most relamps are isolated by the crew; a few at pillars another team had already isolated;
+      // and a few records have gaps a safety officer should catch (no lock ID, a missing re-prove).
+      const byOthers = relamp && r.chance(0.04)
+      const sloppy = relamp && !byOthers && r.chance(0.08)
+      if (byOthers)
+        noIsolationReason = `Isolated at the feeder pillar by the council's electrician, permit ${r.int(4400, 4499)}.`
+      if (relamp && !byOthers) {
         const key = `seed-iso-${s.stringId}-${t0}`
         ;[isolationId] = await db('isolations').insert({
           idempotencyKey: key,
           stringId: s.stringId,
           userId,
           crewId: crew.crewId,
-          lockId: `LK-${r.int(100, 140)}`,
+          lockId: sloppy && r.chance(0.5) ? null : `LK-${r.int(100, 140)}`,
           testerId: `VT-${r.int(10, 14)}`,
           state: 'restored',
-          review: r.chance(0.7) ? 'approved' : 'pending',
+          review: sloppy ? 'pending' : r.chance(0.7) ? 'approved' : 'pending',
           startedAt: at,
           completedAt: new Date(t0 + 40 * 60_000),
         })
-        const steps = [...stepsOn, ...stepsOff].map((step, i) => ({
-          isolationId,
-          step,
-          userId,
-          doneAt: new Date(t0 + (i < 6 ? i : 20 + i) * 60_000 + r.int(0, 50) * 1000),
-          value: step === 'rcd_test' ? `${r.int(14, 28)} ms` : null,
-        }))
+        const skip = sloppy ? r.pick(['reprove_tester', 'rcd_test', 'functional_check']) : null
+        const steps = [...stepsOn, ...stepsOff]
+          .map((step, i) => ({
+            isolationId,
+            step,
+            userId,
+            doneAt: new Date(t0 + (i < 6 ? i : 20 + i) * 60_000 + r.int(0, 50) * 1000),
+            value: step === 'rcd_test' ? `${r.int(14, 28)} ms` : null,
+          }))
+          .filter((x) => x.step !== skip)
         await db('isolationSteps').insert(steps)
       }
       await db('visits').insert({
@@ -68,6 +78,7 @@ export async function seedVisits(
         userId,
         crewId: crew.crewId,
         isolationId,
+        noIsolationReason,
         visitedAt: new Date(t0 + 10 * 60_000),
         failedFound: found,
         replaced: found,

@@ -121,5 +121,21 @@ export async function seedDemo(db: Db, now: Date) {
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)
   await refreshQueue(db, now)
+  await backdateQueue(db, r, now)
   return { strings: rows.length, visits, certificates, reports }
+}
+
+/** Faults were found over the last two days, not all at seed time: some are past their contract clock. */
+async function backdateQueue(db: Db, r: ReturnType<typeof rng>, now: Date) {
+  const items = await db('queueItems as q')
+    .join('clients as c', 'c.id', 'q.clientId')
+    .whereIn('q.kind', ['replace_now', 'dark'])
+    .select('q.id', 'q.severity', 'c.responseEmergencyHours', 'c.responseStandardHours')
+  for (const it of items) {
+    const openedAt = new Date(now.getTime() - r.int(2, 44) * 3_600_000)
+    const hours = it.severity === 'emergency' ? it.responseEmergencyHours : it.responseStandardHours
+    await db('queueItems')
+      .where({ id: it.id })
+      .update({ openedAt, dueBy: new Date(openedAt.getTime() + hours * 3_600_000) })
+  }
 }

@@ -50,7 +50,12 @@ export const isolationAuditList = z.object({
   ),
 })
 
-export const reviewBody = z.object({
-  decision: z.enum(['approved', 'rejected']),
-  note: z.string().trim().max(500).optional(),
-})
+export const reviewBody = z
+  .object({
+    decision: z.enum(['approved', 'rejected']),
+    note: z.string().trim().max(500).optional(),
+  })
+  .refine((b) => b.decision === 'approved' || (b.note ?? '').length >= 5, {
+    message: 'Say why the record is rejected, so the crew can put it right.',
+    path: ['note'],
+  })

@@ -35,9 +35,21 @@ const privateRoutes: RouteRecordRaw[] = [
 
   // strings, visits and labels
   route('/strings/:id', 'string', 'String', [...EVERY_ROLE], () => import('../pages/string/StringPage.vue')),
-  route('/strings/:id/visit', 'log-visit', 'Log a visit', ['crew', 'supervisor'], () => import('../pages/visit/LogVisitPage.vue')),
+  route(
+    '/strings/:id/visit',
+    'log-visit',
+    'Log a visit',
+    ['crew', 'supervisor'],
+    () => import('../pages/visit/LogVisitPage.vue'),
+  ),
   route('/scan', 'scan', 'Scan a label', ['crew', 'supervisor'], () => import('../pages/scan/ScanPage.vue')),
-  route('/runs/print', 'run-sheet', 'Run sheet', ['crew', 'supervisor', 'manager'], () => import('../pages/plan/RunSheetPage.vue')),
+  route(
+    '/runs/print',
+    'run-sheet',
+    'Run sheet',
+    ['crew', 'supervisor', 'manager'],
+    () => import('../pages/plan/RunSheetPage.vue'),
+  ),
 
   // supervisor
   route('/queue', 'queue', 'Queue', ['supervisor'], () => import('../pages/queue/QueuePage.vue')),

@@ -85,16 +85,13 @@ describe('certificates', () => {
   })
 
   it('refuses an unknown subject with a code', async () => {
-    const res = await request(t.app)
-      .post('/api/v1/certificates')
-      .set('Authorization', safety)
-      .send({
-        kind: 'anchor_test',
-        subjectType: 'structure',
-        subjectId: 999999,
-        doneOn: '2026-11-30',
-        result: 'pass',
-      })
+    const res = await request(t.app).post('/api/v1/certificates').set('Authorization', safety).send({
+      kind: 'anchor_test',
+      subjectType: 'structure',
+      subjectId: 999999,
+      doneOn: '2026-11-30',
+      result: 'pass',
+    })
     expect(res.body.error.code).toBe('unknown_subject')
   })
 })

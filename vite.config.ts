@@ -3,6 +3,7 @@ import { defineConfig } from 'vite'
 import vue from '@vitejs/plugin-vue'
 import { quasar, transformAssetUrls } from '@quasar/vite-plugin'
 import { fileURLToPath } from 'node:url'
+import { VitePWA } from 'vite-plugin-pwa'
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '3000'}`
 
@@ -10,13 +11,77 @@ export default defineConfig({
   plugins: [
     vue({ template: { transformAssetUrls } }),
     quasar({ sassVariables: fileURLToPath(new URL('./src/css/quasar-variables.sass', import.meta.url)) }),
+    // ---- PWA (crew-b): offline app shell + last answers for the run and its strings ----------------
+    VitePWA({
+      strategies: 'generateSW',
+      registerType: 'autoUpdate',
+      injectRegister: false, // src/offline/register-sw.ts registers it from main.ts
+      includeAssets: ['favicon.svg', 'icons/apple-touch-icon-180.png'],
+      manifest: {
+        name: 'Lampwright',
+        short_name: 'Lampwright',
+        description: 'Fault log and night runs for festive-lighting crews.',
+        lang: 'en-GB',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        orientation: 'portrait',
+        // The night theme's page colour (src/css/app.sass): crews open the app after dark.
+        theme_color: '#15110D',
+        background_color: '#15110D',
+        icons: [
+          { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png' },
+          { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png' },
+          { src: '/icons/maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      workbox: {
+        globPatterns: ['**/*.{js,css,html,svg,png,woff2}'],
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//, /^\/uploads\//],
+        cleanupOutdatedCaches: true,
+        clientsClaim: true,
+        skipWaiting: true,
+        // GET only (workbox's default method): writes go through the IndexedDB outbox, never a cache.
+        runtimeCaching: [
+          {
+            urlPattern: ({ url, sameOrigin }) =>
+              sameOrigin && /^\/api\/v1\/(runs\/mine$|strings\/.+|config$|basemap)/.test(url.pathname),
+            handler: 'NetworkFirst',
+            method: 'GET',
+            options: {
+              cacheName: 'lw-api',
+              networkTimeoutSeconds: 6,
+              expiration: { maxEntries: 500, maxAgeSeconds: 7 * 24 * 3600 },
+              cacheableResponse: { statuses: [200] },
+            },
+          },
+          {
+            // Lets the app start offline as the person last signed in; cleared on sign-out.
+            urlPattern: ({ url, sameOrigin }) => sameOrigin && url.pathname === '/api/v1/auth/me',
+            handler: 'NetworkFirst',
+            method: 'GET',
+            options: {
+              cacheName: 'lw-session',
+              networkTimeoutSeconds: 6,
+              cacheableResponse: { statuses: [200] },
+            },
+          },
+        ],
+      },
+    }),
+    // ---- end PWA ------------------------------------------------------------------------------------
   ],
   server: { port: 5173, proxy: { '/api': apiTarget, '/uploads': apiTarget } },
   build: { outDir: 'dist', chunkSizeWarningLimit: 900 },
   test: {
     projects: [
       {
-        test: { name: 'shared', include: ['tests/shared/**/*.test.ts'], environment: 'node' },
+        test: {
+          name: 'shared',
+          include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.ts'],
+          environment: 'node',
+        },
       },
       {
         test: {

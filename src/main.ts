@@ -15,6 +15,8 @@ import App from './App.vue'
 import { setUnauthenticatedHandler } from './api/http'
 import { router } from './router'
 import { useAuthStore } from './stores/auth'
+// ---- offline (crew-b): service worker + outbox sender ----
+import { startOffline } from './offline/start-offline'
 
 const app = createApp(App)
 
@@ -28,6 +30,9 @@ app.use(Quasar, {
 })
 app.use(createPinia())
 app.use(router)
+
+// ---- offline (crew-b): register the service worker; send the outbox at start, on `online`, after saves ----
+startOffline()
 
 // A session that expires while a page is open sends the user to sign in and back again afterwards.
 setUnauthenticatedHandler(() => {

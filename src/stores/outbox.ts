@@ -2,7 +2,14 @@ import { defineStore } from 'pinia'
 import { computed, ref, shallowRef, watch } from 'vue'
 import { Notify } from 'quasar'
 import type { VisitDraft } from '../components/visit/visit-draft'
-import { deleteEntries, groupEntries, listEntries, pruneSent, putEntry, queueSave } from '../offline/outbox-repo'
+import {
+  deleteEntries,
+  groupEntries,
+  listEntries,
+  pruneSent,
+  putEntry,
+  queueSave,
+} from '../offline/outbox-repo'
 import type { OutboxEntry, VisitEntry } from '../offline/outbox-types'
 import { sendPending } from '../offline/sender'
 import { recordVisitResult } from '../offline/string-cache'
@@ -75,7 +82,10 @@ export const useOutboxStore = defineStore('outbox', () => {
     lastPassAt.value = new Date().toISOString()
     await refresh()
     if (outcome.failed > 0) {
-      Notify.create({ type: 'negative', message: 'The server refused an item in the outbox. Open the outbox to fix it.' })
+      Notify.create({
+        type: 'negative',
+        message: 'The server refused an item in the outbox. Open the outbox to fix it.',
+      })
     }
     scheduleRetry(outcome.nextAttemptAt)
   }
@@ -94,7 +104,8 @@ export const useOutboxStore = defineStore('outbox', () => {
     }
     sending.value = true
     const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined
-    const once = () => (locks ? locks.request(LOCK_NAME, { ifAvailable: true }, (lock) => (lock ? pass() : undefined)) : pass())
+    const once = () =>
+      locks ? locks.request(LOCK_NAME, { ifAvailable: true }, (lock) => (lock ? pass() : undefined)) : pass()
     running = (async () => {
       try {
         do {
@@ -134,7 +145,7 @@ export const useOutboxStore = defineStore('outbox', () => {
     started = true
     window.addEventListener('online', () => {
       online.value = true
-      void retryAllNow()
+      void sendNow()
     })
     window.addEventListener('offline', () => {
       online.value = false
@@ -153,8 +164,9 @@ export const useOutboxStore = defineStore('outbox', () => {
   }
 
   /** Back-off waits are for a flaky server; when the phone says the signal is back, try at once. */
-  async function retryAllNow(): Promise<void> {
-    for (const e of await listEntries()) if (e.state === 'pending' && e.nextAttemptAt > 0) await putEntry({ ...e, nextAttemptAt: 0 })
+  async function sendNow(): Promise<void> {
+    for (const e of await listEntries())
+      if (e.state === 'pending' && e.nextAttemptAt > 0) await putEntry({ ...e, nextAttemptAt: 0 })
     await refresh()
     await flush()
   }
@@ -176,6 +188,7 @@ export const useOutboxStore = defineStore('outbox', () => {
     pendingVisitsFor,
     save,
     flush,
+    sendNow,
     retry,
     discard,
     start,

@@ -1,0 +1,25 @@
+// Icons for the crew's field screens (visit, outbox, run), as inline SVG from @quasar/extras like
+// src/icons.ts; kept here so the shared icon list stays the shell's.
+export {
+  mdiAlertOutline as iconCaution,
+  mdiCalendarMonthOutline as iconCalendar,
+  mdiCameraOutline as iconCamera,
+  mdiCheck as iconCheck,
+  mdiCheckCircleOutline as iconDone,
+  mdiClipboardEditOutline as iconLogVisit,
+  mdiClockOutline as iconClock,
+  mdiClose as iconClose,
+  mdiCloudOffOutline as iconOffline,
+  mdiCloudCheckOutline as iconSent,
+  mdiDeleteOutline as iconDiscard,
+  mdiLockOutline as iconLock,
+  mdiMinus as iconMinus,
+  mdiNavigationVariantOutline as iconNavigate,
+  mdiPencilOutline as iconEdit,
+  mdiPlus as iconPlus,
+  mdiPrinterOutline as iconPrint,
+  mdiSend as iconSend,
+  mdiSendClockOutline as iconWaiting,
+  mdiTimerOutline as iconTimer,
+  mdiWarehouse as iconDepot,
+} from '@quasar/extras/mdi-v7'

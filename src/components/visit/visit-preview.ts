@@ -1,0 +1,68 @@
+// What a visit does to a string's recorded condition, computed on the phone with the same engine the
+// server uses (shared/string-status.ts), so the preview holds offline and matches the server's answer.
+import { assess, lifePhrase, percent } from '../../../shared/engine'
+import {
+  engineInput,
+  stringStatus,
+  type Condition,
+  type StringStatus,
+  type TypeSpec,
+} from '../../../shared/string-status'
+import type { VisitBody } from '../../../shared/schemas/visits'
+
+export type VisitCounts = Pick<
+  VisitBody,
+  'failedFound' | 'replaced' | 'fuseReplaced' | 'darkOnArrival' | 'leaveMadeSafe'
+>
+
+/**
+ * Mirrors server/services/visits.ts `logVisit`: found lamps add to those out, replaced ones come off,
+ * a replaced fuse lamp clears the fuse, any relamp lights a dark string, "leave made safe" isolates it.
+ */
+export function applyVisit(before: Condition, v: VisitCounts): Condition {
+  const fixed = v.replaced > 0 || !!v.fuseReplaced
+  return {
+    lampsOut: Math.max(0, before.lampsOut + v.failedFound - v.replaced),
+    fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
+    dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
+    isolated: !!v.leaveMadeSafe,
+  }
+}
+
+export interface StatePreview {
+  status: StringStatus
+  lampsOut: number
+  /** "120 %" of the lamps' rated voltage, or null when nothing is lit. */
+  ofRating: string | null
+  /** "about 10 % of normal" */
+  life: string | null
+  firstReason: string | null
+  /** The same at the supply voltage measured on site, when it differs from the nominal. */
+  atMeasured: { volts: number; ofRating: string; life: string } | null
+}
+
+function hottest(result: ReturnType<typeof assess>) {
+  let best: (typeof result.classes)[number] | null = null
+  for (const c of result.classes) if (c.lampsInCircuit > 0 && (!best || c.ratio > best.ratio)) best = c
+  return best
+}
+
+export function previewState(type: TypeSpec, cond: Condition, measuredVolts?: number): StatePreview {
+  const { status, result } = stringStatus(type, cond)
+  const hot = result.lit ? hottest(result) : null
+  let atMeasured: StatePreview['atMeasured'] = null
+  if (measuredVolts && result.lit && Math.abs(measuredVolts - type.supplyVolts) >= 1) {
+    const m = assess(engineInput(type, cond, measuredVolts))
+    const mHot = hottest(m)
+    if (mHot)
+      atMeasured = { volts: measuredVolts, ofRating: percent(mHot.ratio), life: lifePhrase(mHot.lifeFactor) }
+  }
+  return {
+    status,
+    lampsOut: cond.lampsOut,
+    ofRating: hot ? percent(hot.ratio) : null,
+    life: hot ? lifePhrase(hot.lifeFactor) : null,
+    firstReason: result.reasons[0] ?? null,
+    atMeasured,
+  }
+}

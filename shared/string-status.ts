@@ -72,3 +72,26 @@ export function stringStatus(type: TypeSpec, c: Condition) {
           : 'lit'
   return { status, replaceNow: !c.isolated && (c.dark || result.replaceNow), result }
 }
+
+export interface VisitCounts {
+  failedFound: number
+  replaced: number
+  fuseReplaced?: boolean
+  darkOnArrival?: boolean
+  leaveMadeSafe?: boolean
+}
+
+/**
+ * What a visit does to a string's recorded condition (the server records it, the phone previews it):
+ * found lamps add to those out, replaced ones come off, a replaced fuse lamp clears the fuse, any
+ * relamp lights a dark string, "leave made safe" isolates it.
+ */
+export function applyVisit(before: Condition, v: VisitCounts): Condition {
+  const fixed = v.replaced > 0 || !!v.fuseReplaced
+  return {
+    lampsOut: Math.max(0, before.lampsOut + v.failedFound - v.replaced),
+    fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
+    dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
+    isolated: !!v.leaveMadeSafe,
+  }
+}

@@ -1,7 +1,7 @@
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
-import { shuntedLampCount, stringStatus } from '../../shared/string-status'
+import { applyVisit, shuntedLampCount, stringStatus } from '../../shared/string-status'
 import { loadType } from './strings'
 import { requireIsolatedFor } from './isolations'
 import { syncStringQueue } from './queue-sync'
@@ -69,13 +69,10 @@ export async function logVisit(
           'Record the isolation steps before relamping, or say why none was needed.',
         )
       }
-      const fixed = body.replaced > 0 || !!body.fuseReplaced
-      const cond = {
-        lampsOut: outNow - body.replaced,
-        fuseFailed: body.fuseReplaced ? false : !!s.fuseFailed,
-        dark: body.darkOnArrival ? !fixed : !!s.dark && !fixed,
-        isolated: !!body.leaveMadeSafe,
-      }
+      const cond = applyVisit(
+        { lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated },
+        body,
+      )
       const { status, replaceNow, result } = stringStatus(type, cond)
       const now = new Date()
       const [id] = await trx('visits').insert({

@@ -8,26 +8,8 @@ import {
   type StringStatus,
   type TypeSpec,
 } from '../../../shared/string-status'
-import type { VisitBody } from '../../../shared/schemas/visits'
 
-export type VisitCounts = Pick<
-  VisitBody,
-  'failedFound' | 'replaced' | 'fuseReplaced' | 'darkOnArrival' | 'leaveMadeSafe'
->
-
-/**
- * Mirrors server/services/visits.ts `logVisit`: found lamps add to those out, replaced ones come off,
- * a replaced fuse lamp clears the fuse, any relamp lights a dark string, "leave made safe" isolates it.
- */
-export function applyVisit(before: Condition, v: VisitCounts): Condition {
-  const fixed = v.replaced > 0 || !!v.fuseReplaced
-  return {
-    lampsOut: Math.max(0, before.lampsOut + v.failedFound - v.replaced),
-    fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
-    dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
-    isolated: !!v.leaveMadeSafe,
-  }
-}
+export { applyVisit, type VisitCounts } from '../../../shared/string-status'
 
 export interface StatePreview {
   status: StringStatus

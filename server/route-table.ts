@@ -64,12 +64,12 @@ export function mountRoutes(router: Router, defs: RouteDef[], deps: AppDeps): vo
     chain.push(validate(def))
     chain.push(async (req, res) => {
       const v = res.locals.valid as { body: unknown; query: unknown; params: unknown }
+      // The table's status unless the handler sets its own (503 from the health check, 200 for a replay).
+      res.status(def.status ?? 200)
       const result = await def.handler({ req, res, ...v, user: req.user!, deps })
       if (res.headersSent) return
-      // A handler may set its own status (e.g. 503 from the health check); otherwise the table's.
-      const status = res.statusCode !== 200 ? res.statusCode : def.status
-      if (result === undefined) res.status(status ?? 204).end()
-      else res.status(status ?? 200).json(result)
+      if (result !== undefined) res.json(result)
+      else res.status(res.statusCode === 200 && !def.status ? 204 : res.statusCode).end()
     })
     router[def.method](def.path, ...chain)
   }

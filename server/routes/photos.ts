@@ -20,9 +20,13 @@ export const photoRoutes: RouteDef[] = [
     response: photoList,
     status: 201,
     before: (deps) => [memoryUpload(deps.config)],
-    handler: async ({ req, params, user, deps }) => {
+    handler: async ({ req, res, params, user, deps }) => {
       const files = Array.isArray(req.files) ? req.files : []
-      return { items: await savePhotos(deps.db, deps.uploadDir, params.id, user.id, files) }
+      // Optional here: the phone's outbox sends one so a repeated upload is not stored twice.
+      const key = req.header('Idempotency-Key')?.trim().slice(0, 64) || null
+      const { created, items } = await savePhotos(deps.db, deps.uploadDir, params.id, user.id, files, key)
+      if (!created) res.status(200)
+      return { items }
     },
   }),
   defineRoute({

@@ -57,9 +57,17 @@ export async function savePhotos(
   visitId: number,
   userId: number,
   files: UploadedFile[],
-): Promise<PhotoItem[]> {
+  uploadKey: string | null = null,
+): Promise<{ created: boolean; items: PhotoItem[] }> {
   if (!files.length) throw badRequest('no_photo', 'Attach at least one photo in the form field "photo".')
   await requireVisit(db, visitId)
+  if (uploadKey) {
+    const earlier = await db('photos')
+      .where({ visitId, uploadKey })
+      .orderBy('id')
+      .select('id', 'width', 'height', 'takenAt', 'lat', 'lng')
+    if (earlier.length) return { created: false, items: earlier.map(toItem) }
+  }
   const mimes: AcceptedMime[] = []
   for (const f of files) mimes.push(await checkImage(f.buffer, f.originalname || 'photo'))
 
@@ -99,14 +107,16 @@ export async function savePhotos(
           lat: p.meta.lat,
           lng: p.meta.lng,
           userId,
+          uploadKey,
         })
         out.push(Number(id))
       }
       return out
     })
-    return prepared.map((p, i) =>
+    const items = prepared.map((p, i) =>
       toItem({ id: ids[i], width: p.encoded.width, height: p.encoded.height, ...p.meta }),
     )
+    return { created: true, items }
   } catch (err) {
     await Promise.all(written.map((path) => rm(path, { force: true })))
     throw err

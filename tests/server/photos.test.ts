@@ -177,6 +177,26 @@ describe('uploading visit photos', () => {
     expect([misnamed.status, misnamed.body.error.code]).toEqual([400, 'unexpected_field'])
   })
 
+  it('returns the photos already stored when the same upload key comes again, storing nothing twice', async () => {
+    const key = `photo-${Date.now()}`
+    const send = async () =>
+      request(t.app)
+        .post(`/api/v1/visits/${visitId}/photos`)
+        .set('Authorization', await bearer())
+        .set('Idempotency-Key', key)
+        .attach('photo', await jpeg(16, 12), { filename: 'a.jpg', contentType: 'image/jpeg' })
+    const first = await send()
+    expect(first.status).toBe(201)
+    created.push(...first.body.items.map((i: { id: number }) => i.id))
+    const before = (await files()).length
+    const again = await send()
+    expect(again.status).toBe(200)
+    expect(again.body.items.map((i: { id: number }) => i.id)).toEqual(
+      first.body.items.map((i: { id: number }) => i.id),
+    )
+    expect((await files()).length).toBe(before)
+  })
+
   it('rejects a tiny PNG that declares 20000×20000 before decoding it, with 400 image_dimensions', async () => {
     const bomb = await pngDeclaring(20000, 20000)
     expect(bomb.length).toBeLessThan(200)

@@ -9,6 +9,9 @@ import { seedCertificates, seedVisits } from './history'
 import { seedReports } from './reports'
 import { typeDefs } from './types'
 import { refreshQueue } from '../../server/jobs/refresh-queue'
+import { listQueue } from '../../server/services/queue'
+import { proposePlan, publishRuns } from '../../server/services/runs'
+import { loadConfig } from '../../server/config'
 
 const tables = [
   'run_stops',
@@ -122,6 +125,7 @@ export async function seedDemo(db: Db, now: Date) {
   const reports = await seedReports(db, now)
   await refreshQueue(db, now)
   await backdateQueue(db, r, now)
+  await publishTonight(db, now, users.find((u) => u.role === 'supervisor')!.id)
   return { strings: rows.length, visits, certificates, reports }
 }
 
@@ -138,4 +142,16 @@ async function backdateQueue(db: Db, r: ReturnType<typeof rng>, now: Date) {
       .where({ id: it.id })
       .update({ openedAt, dueBy: new Date(openedAt.getTime() + hours * 3_600_000) })
   }
+}
+
+/** Tonight's runs, planned and published by the demo supervisor, so crews open the app to real work. */
+async function publishTonight(db: Db, now: Date, supervisorId: number) {
+  const date = now.toISOString().slice(0, 10)
+  const items = (await listQueue(db, { state: 'open' }, now)).filter((i) => i.lat !== null).slice(0, 14)
+  const crews = (await db('crews').select('id')).map((c) => c.id as number)
+  const plan = await proposePlan(db, { date, crewIds: crews, itemIds: items.map((i) => i.id), pins: [] })
+  const runs = plan.runs.map((r) => ({ crewId: r.crewId, itemIds: r.stops.map((s) => s.itemId!) }))
+  // Seeding sends no e-mail: the crews "already had" tonight's sheets.
+  const silent = { send: async () => ({ id: 0, sent: false }) }
+  await publishRuns(db, silent, loadConfig(), supervisorId, { date, runs })
 }

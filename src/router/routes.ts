@@ -24,7 +24,13 @@ const privateRoutes: RouteRecordRaw[] = [
   // crew
   route('/run', 'run', "Tonight's run", ['crew'], () => import('../pages/run/RunPage.vue')),
   route('/map', 'map', 'Map', ['crew', 'supervisor', 'manager'], () => import('../pages/map/MapPage.vue')),
-  route('/outbox', 'outbox', 'Outbox', ['crew', 'supervisor'], () => import('../pages/outbox/OutboxPage.vue')),
+  route(
+    '/outbox',
+    'outbox',
+    'Outbox',
+    ['crew', 'supervisor'],
+    () => import('../pages/outbox/OutboxPage.vue'),
+  ),
   route(
     '/calculator',
     'calculator',

@@ -4,14 +4,13 @@ import type { Knex } from 'knex'
 // answer was lost to a bad signal) returns the photos already stored instead of storing them twice.
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('photos', (t) => {
-    t.string('upload_key', 64)
-    t.index(['visit_id', 'upload_key'])
+    t.string('upload_key', 64).index()
   })
 }
 
 export async function down(knex: Knex): Promise<void> {
   await knex.schema.alterTable('photos', (t) => {
-    t.dropIndex(['visit_id', 'upload_key'])
+    t.dropIndex(['upload_key'])
     t.dropColumn('upload_key')
   })
 }

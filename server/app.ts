@@ -26,6 +26,9 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
       contentSecurityPolicy: {
         directives: {
           'img-src': ["'self'", 'data:', 'blob:', ...(tiles ? [tiles] : [])],
+          // Fonts and icons ship with the app; Quasar sets inline styles.
+          'font-src': ["'self'", 'data:'],
+          'style-src': ["'self'", "'unsafe-inline'"],
           'connect-src': ["'self'"],
           'worker-src': ["'self'", 'blob:'],
           'upgrade-insecure-requests': null,

@@ -1,9 +1,17 @@
 import { roles } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
-import { bboxQuery, mapList, stringDetail, tagLookup, tagParam } from '../../shared/schemas/strings'
+import {
+  bboxQuery,
+  circuitLoadResult,
+  mapList,
+  stringDetail,
+  tagLookup,
+  tagParam,
+} from '../../shared/schemas/strings'
 import { defineRoute, type RouteDef } from '../route-table'
 import { findByTag, listForMap } from '../services/strings'
 import { stringDetail as loadDetail } from '../services/string-detail'
+import { circuitLoad } from '../services/circuit-load'
 
 export const stringRoutes: RouteDef[] = [
   defineRoute({
@@ -35,5 +43,15 @@ export const stringRoutes: RouteDef[] = [
     params: idParam,
     response: stringDetail,
     handler: ({ deps, params }) => loadDetail(deps.db, params.id),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/circuits/:id/load',
+    access: roles,
+    tag: 'strings',
+    summary: 'Running and switch-on current of every string on a circuit against its breaker, RCD and energy',
+    params: idParam,
+    response: circuitLoadResult,
+    handler: ({ deps, params }) => circuitLoad(deps.db, params.id),
   }),
 ]

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { statuses } from '../string-status'
+import { circuitResponseSchema } from './engine'
 
 export const statusSchema = z.enum(statuses)
 
@@ -126,3 +127,13 @@ export const stringDetail = z.object({
   ),
 })
 export type StringDetail = z.infer<typeof stringDetail>
+
+export const circuitLoadResult = z.object({
+  circuitId: z.number(),
+  ref: z.string(),
+  stringCount: z.number(),
+  energised: z.number(),
+  seasonDays: z.number().nullable(),
+  result: circuitResponseSchema.nullable(),
+})
+export type CircuitLoad = z.infer<typeof circuitLoadResult>

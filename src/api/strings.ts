@@ -1,5 +1,5 @@
 import type { z } from 'zod'
-import type { mapItem, mapList, stringDetail, tagLookup } from '../../shared/schemas/strings'
+import type { mapItem, mapList, stringDetail, tagLookup, CircuitLoad } from '../../shared/schemas/strings'
 import type { basemap } from '../../shared/schemas/system'
 import type { AssessResponse, ForecastResponse } from '../../shared/schemas/engine'
 import { http } from './http'
@@ -33,6 +33,9 @@ export const stringsApi = {
   search: (q: string, signal?: AbortSignal) => http.get<MapList>('/strings', { q, limit: 40 }, signal),
   byTag: (tag: string) => http.get<TagLookup>(`/strings/by-tag/${encodeURIComponent(tag)}`),
   get: (id: number | string) => http.get<StringDetail>(`/strings/${encodeURIComponent(String(id))}`),
+  circuitLoad: (circuitId: number) => http.get<CircuitLoad>(`/circuits/${circuitId}/load`),
   // The demo town's own streets; drawn only when the server has no tile source configured.
   basemap: () => http.get<Basemap>('/basemap'),
 }
+
+export type { CircuitLoad }

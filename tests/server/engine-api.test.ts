@@ -67,3 +67,30 @@ describe('engine API', () => {
     expect(res.body.switchOn).toBe('may trip')
   })
 })
+
+describe('circuit load from the register', () => {
+  it('sums the strings on a circuit and judges the switch-on peak against the breaker band (IEC 60898-1)', async () => {
+    const circuit = await t.db('circuits').where({ breakerCurve: 'B', breakerAmps: 16 }).first('id')
+    const res = await request(t.app).get(`/api/v1/circuits/${circuit.id}/load`).set('Authorization', auth)
+    expect(res.status).toBe(200)
+    const r = res.body.result
+    // Type B: instantaneous trip between 3 and 5 × rated current; 80 % of rating for continuous load.
+    expect(r.instantaneousBand).toEqual({ lowAmps: 48, highAmps: 80 })
+    expect(r.continuousLimitAmps).toBeCloseTo(12.8, 6)
+    expect(r.peakAmps).toBeGreaterThan(r.runningAmps)
+    expect(r.energy.kwhPerNight).toBeCloseTo((r.energy.watts * 7) / 1000, 6) // 16:00–23:00 in the demo contract
+  })
+})
+
+describe('content security policy', () => {
+  it('allows exactly the configured tile host for images, and no font or style host', async () => {
+    const { makeTestApp } = await import('./helpers')
+    const tiles = await makeTestApp({ TILE_URL: 'https://{s}.tiles.example.net/{z}/{x}/{y}.png' })
+    const res = await request(tiles.app).get('/api/v1/health')
+    const csp = String(res.headers['content-security-policy'])
+    expect(csp).toMatch(/img-src 'self' data: blob: https:\/\/\*\.tiles\.example\.net;/)
+    expect(csp).toMatch(/font-src 'self' data:;/)
+    expect(csp).not.toMatch(/https:;/)
+    await tiles.close()
+  })
+})

@@ -19,6 +19,8 @@ const schema = z.object({
   TILE_URL: z.string().optional(),
   TILE_ATTRIBUTION: z.string().default('Lampwright demo basemap'),
   TILE_MAX_ZOOM: z.coerce.number().int().min(1).max(22).default(19),
+  /** Base URL of an OSRM-compatible routing service for travel times; unset = straight line × detour. */
+  ROUTING_URL: z.string().url().optional(),
   UPLOAD_DIR: z.string().default('uploads'),
   UPLOAD_MAX_MB: z.coerce.number().positive().default(12),
   LOG_LEVEL: z.string().default('info'),

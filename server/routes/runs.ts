@@ -35,7 +35,7 @@ export const runRoutes: RouteDef[] = [
     summary: 'Propose runs: assign queue items to crews and order them (not saved)',
     body: planBody,
     response: planResult,
-    handler: ({ deps, body }) => proposePlan(deps.db, body),
+    handler: ({ deps, body }) => proposePlan(deps.db, body, deps.config),
   }),
   defineRoute({
     method: 'post',

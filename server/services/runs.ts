@@ -6,6 +6,7 @@ import type { PlanResult } from '../../shared/routing/plan-types'
 import type { CrewRun, PlanBody, PlanResultView } from '../../shared/schemas/runs'
 import { loadCrews, loadItems, toPlanCrew, toPlanItem, type CrewInfo, type ItemInfo } from './run-items'
 import { runMail } from '../mail/run-mail'
+import { travelMatrix } from './travel-matrix'
 import { listRuns } from './run-list'
 
 function view(
@@ -55,9 +56,18 @@ function view(
 }
 
 /** Assigns the chosen queue items to the chosen crews and orders each run; nothing is saved. */
-export async function proposePlan(db: Db, body: PlanBody): Promise<PlanResultView> {
+export async function proposePlan(
+  db: Db,
+  body: PlanBody,
+  config: Pick<Config, 'ROUTING_URL'> = {},
+): Promise<PlanResultView> {
   const crews = await loadCrews(db, body.crewIds)
   const items = await loadItems(db, body.itemIds)
+  // The planner's travel matrix runs over depots first, then items, in this order.
+  const travel = await travelMatrix(config, [
+    ...crews.map((c) => ({ lat: c.depotLat, lng: c.depotLng })),
+    ...[...items.values()].map((i) => ({ lat: i.lat, lng: i.lng })),
+  ])
   const pins = new Map(body.pins.map((p) => [p.itemId, p]))
   const result = planRuns({
     crews: crews.map(toPlanCrew),
@@ -68,11 +78,12 @@ export async function proposePlan(db: Db, body: PlanBody): Promise<PlanResultVie
         ...(pin ? { pinnedCrewId: String(pin.crewId), pinnedIndex: pin.index } : {}),
       }
     }),
-    settings: { speedKmh: body.speedKmh, detourFactor: body.detourFactor },
+    settings: { speedKmh: body.speedKmh, detourFactor: body.detourFactor, matrixMinutes: travel.minutes },
   })
   const pinned = new Set(pins.keys())
   return {
     date: body.date,
+    travelSource: travel.source,
     runs: crews.map((c) =>
       view(
         body.date,
@@ -104,14 +115,18 @@ export async function publishRuns(
     detourFactor?: number
   },
 ) {
-  const plan = await proposePlan(db, {
-    date: body.date,
-    crewIds: body.runs.map((r) => r.crewId),
-    itemIds: [...new Set(body.runs.flatMap((r) => r.itemIds))],
-    pins: body.runs.flatMap((r) => r.itemIds.map((itemId, index) => ({ itemId, crewId: r.crewId, index }))),
-    speedKmh: body.speedKmh,
-    detourFactor: body.detourFactor,
-  })
+  const plan = await proposePlan(
+    db,
+    {
+      date: body.date,
+      crewIds: body.runs.map((r) => r.crewId),
+      itemIds: [...new Set(body.runs.flatMap((r) => r.itemIds))],
+      pins: body.runs.flatMap((r) => r.itemIds.map((itemId, index) => ({ itemId, crewId: r.crewId, index }))),
+      speedKmh: body.speedKmh,
+      detourFactor: body.detourFactor,
+    },
+    config,
+  )
   const now = new Date()
   const notices: { crewId: number; changed: boolean }[] = []
   await db.transaction(async (trx) => {
@@ -162,5 +177,5 @@ export async function publishRuns(
     const crew = (await loadCrews(db, [n.crewId]))[0]
     for (const m of crew.members) await mailer.send(runMail(config, m, run, n.changed))
   }
-  return { date: body.date, runs: saved, unassigned: plan.unassigned }
+  return { date: body.date, travelSource: plan.travelSource, runs: saved, unassigned: plan.unassigned }
 }

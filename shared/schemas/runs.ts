@@ -62,6 +62,8 @@ export type CrewRun = z.infer<typeof crewRun>
 
 export const planResult = z.object({
   date: z.string(),
+  /** where travel times came from: the routing service (ROUTING_URL) or straight line × detour */
+  travelSource: z.enum(['straight_line', 'routing_service']),
   runs: z.array(crewRun),
   unassigned: z.array(
     z.object({ itemId: z.number(), summary: z.string(), reason: z.string(), message: z.string() }),

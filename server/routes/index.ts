@@ -14,6 +14,7 @@ import { isolationRoutes } from './isolations'
 import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
 import { reportRoutes } from './reports'
+import { managerRoutes } from './manager'
 
 export const allRoutes: RouteDef[] = [
   ...systemRoutes,
@@ -30,4 +31,5 @@ export const allRoutes: RouteDef[] = [
   ...overdueRoutes,
   ...certificateRoutes,
   ...reportRoutes,
+  ...managerRoutes,
 ]

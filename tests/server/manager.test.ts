@@ -1,0 +1,44 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { makeTestApp, type TestApp } from './helpers'
+
+let t: TestApp
+let manager: string
+beforeAll(async () => {
+  t = await makeTestApp()
+  manager = `Bearer ${await t.token('manager')}`
+})
+afterAll(() => t.close())
+
+describe('energy', () => {
+  it('prices each client’s season: watts × burning hours a night × season days × tariff', async () => {
+    const res = await request(t.app).get('/api/v1/energy').set('Authorization', manager)
+    expect(res.status).toBe(200)
+    const town = res.body.clients.find((c: { name: string }) => c.name === 'Wrenfold Town Council')
+    expect(town.burnHoursPerDay).toBe(7) // the demo contract switches 16:00–23:00
+    expect(town.kwhPerNight).toBeCloseTo((town.watts * 7) / 1000, 6)
+    expect(town.kwhPerSeason).toBeCloseTo(town.kwhPerNight * town.seasonDays, 6)
+    expect(town.costPerSeason).toBeCloseTo(town.kwhPerSeason * town.tariffPerKwh, 6)
+    const siteWatts = town.sites.reduce((s: number, x: { watts: number }) => s + x.watts, 0)
+    expect(siteWatts).toBeCloseTo(town.watts, 6)
+    // A 20-lamp 12 V 0.5 A catenary runs near its 120 W rating on 230 V (r = 230/240, power ∝ r^1.6:
+    // Fink & Beaty via Wikipedia "Lamp rerating"), so the catenaries dominate the town's load.
+    expect(town.types[0].code).toBe('CAT-F20')
+  })
+})
+
+describe('register', () => {
+  it('lists every string and filters by status and search', async () => {
+    const all = await request(t.app).get('/api/v1/register').set('Authorization', manager)
+    const count = Number((await t.db('strings').count({ n: '*' }))[0].n)
+    expect(all.body.items).toHaveLength(count)
+    const dark = await request(t.app).get('/api/v1/register?status=dark').set('Authorization', manager)
+    expect(dark.body.items.every((s: { status: string }) => s.status === 'dark')).toBe(true)
+    const hs = await request(t.app).get('/api/v1/register?q=WF-HS-01').set('Authorization', manager)
+    expect(hs.body.items.every((s: { assetTag: string }) => s.assetTag.startsWith('WF-HS-01'))).toBe(true)
+    const crew = await request(t.app)
+      .get('/api/v1/register')
+      .set('Authorization', `Bearer ${await t.token('crew')}`)
+    expect(crew.status).toBe(403)
+  })
+})

@@ -1,5 +1,5 @@
 // Turns a string's recorded condition into the engine's input and our five state marks.
-import type { AssessRequest } from './schemas/engine'
+import type { AssessRequest, ForecastRequest } from './schemas/engine'
 import { assess } from './engine/assess'
 
 export const statuses = ['lit', 'watch', 'replace', 'dark', 'safe'] as const
@@ -93,5 +93,26 @@ export function applyVisit(before: Condition, v: VisitCounts): Condition {
     fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
     dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
     isolated: !!v.leaveMadeSafe,
+  }
+}
+
+export interface LifeSpec extends TypeSpec {
+  ratedLifeHours: number
+  weibullShape: number
+  shuntFailProbability: number
+}
+
+/** The forecast's input for a string as recorded (phone preview and server alike), at its design supply. */
+export function forecastInput(
+  type: LifeSpec,
+  c: Condition,
+  o: { lampAgeHours: number; burnHoursPerDay: number; startDate: string; trials: number; seed: number },
+): ForecastRequest {
+  return {
+    ...engineInput(type, c, type.supplyVolts),
+    ratedLifeHours: type.ratedLifeHours,
+    weibullShape: type.weibullShape,
+    shuntFailProbability: type.shuntFailProbability,
+    ...o,
   }
 }

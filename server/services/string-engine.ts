@@ -1,5 +1,5 @@
 // The engine applied to a string as recorded: its condition, assessment and forecast.
-import { engineInput } from '../../shared/string-status'
+import { engineInput, forecastInput } from '../../shared/string-status'
 import { forecast } from '../../shared/engine/forecast'
 import { assess } from '../../shared/engine/assess'
 import type { StringType } from './strings'
@@ -30,15 +30,13 @@ export function stringForecast(
   startDate: string,
   trials = 2000,
 ) {
-  return forecast({
-    ...engineInput(type, conditionOf(s), type.supplyVolts),
-    ratedLifeHours: type.ratedLifeHours,
-    weibullShape: type.weibullShape,
-    lampAgeHours: s.lampAgeHours,
-    shuntFailProbability: type.shuntFailProbability,
-    burnHoursPerDay,
-    startDate,
-    trials,
-    seed: s.id,
-  })
+  return forecast(
+    forecastInput(type, conditionOf(s), {
+      lampAgeHours: s.lampAgeHours,
+      burnHoursPerDay,
+      startDate,
+      trials,
+      seed: s.id,
+    }),
+  )
 }

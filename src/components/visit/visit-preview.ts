@@ -1,8 +1,10 @@
 // What a visit does to a string's recorded condition, computed on the phone with the same engine the
 // server uses (shared/string-status.ts), so the preview holds offline and matches the server's answer.
-import { assess, lifePhrase, percent } from '../../../shared/engine'
+import { assess, forecast, lifePhrase, percent } from '../../../shared/engine'
 import {
   engineInput,
+  forecastInput,
+  type LifeSpec,
   stringStatus,
   type Condition,
   type StringStatus,
@@ -46,5 +48,34 @@ export function previewState(type: TypeSpec, cond: Condition, measuredVolts?: nu
     life: hot ? lifePhrase(hot.lifeFactor) : null,
     firstReason: result.reasons[0] ?? null,
     atMeasured,
+  }
+}
+
+export interface ForecastPreview {
+  nextFailure: string | null
+  dark: string | null
+  pDark72: number
+}
+
+/** The cascade forecast after the visit, on the phone: fewer trials than the server, same model and seed. */
+export function previewForecast(
+  d: { id: number; type: LifeSpec; lampAgeHours: number; schedule: { burnHoursPerDay: number } },
+  cond: Condition,
+  today = new Date(),
+): ForecastPreview | null {
+  if (cond.isolated || cond.dark) return null
+  const fc = forecast(
+    forecastInput(d.type, cond, {
+      lampAgeHours: d.lampAgeHours,
+      burnHoursPerDay: d.schedule.burnHoursPerDay,
+      startDate: today.toISOString().slice(0, 10),
+      trials: 600,
+      seed: d.id,
+    }),
+  )
+  return {
+    nextFailure: fc.dates?.failures[0] ?? null,
+    dark: fc.dates?.medianDark ?? null,
+    pDark72: fc.pDark.find((p) => p.hours === 72)?.p ?? 0,
   }
 }

@@ -12,7 +12,7 @@ import {
   type DraftErrors,
   type VisitDraft,
 } from '../../components/visit/visit-draft'
-import { applyVisit, previewState } from '../../components/visit/visit-preview'
+import { applyVisit, previewForecast, previewState } from '../../components/visit/visit-preview'
 import { clearDraft, draftFromOutbox, saveDraft, unsentDraft } from '../../offline/draft-store'
 import type { EntryError, VisitEntry } from '../../offline/outbox-types'
 import { loadString } from '../../offline/string-cache'
@@ -90,6 +90,11 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     const d = draft.value
     if (!detail.value || !base.value || !d) return null
     return previewState(detail.value.type, applyVisit(base.value, d), parseReading(d.readings.supplyVolts))
+  })
+  const afterForecast = computed(() => {
+    const d = draft.value
+    if (!detail.value || !base.value || !d) return null
+    return previewForecast(detail.value, applyVisit(base.value, d))
   })
   const checks = computed<DraftErrors>(() =>
     draft.value && base.value ? checkDraft(draft.value, base.value.lampsOut, capacity.value) : {},
@@ -177,6 +182,7 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     base,
     before,
     after,
+    afterForecast,
     errors,
     load,
     save,

@@ -15,6 +15,7 @@ import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
 import { reportRoutes } from './reports'
 import { managerRoutes } from './manager'
+import { settingsRoutes } from './settings'
 
 export const allRoutes: RouteDef[] = [
   ...systemRoutes,
@@ -32,4 +33,5 @@ export const allRoutes: RouteDef[] = [
   ...certificateRoutes,
   ...reportRoutes,
   ...managerRoutes,
+  ...settingsRoutes,
 ]

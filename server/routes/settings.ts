@@ -1,0 +1,66 @@
+import { roles } from '../../shared/roles'
+import { idParam } from '../../shared/schemas/common'
+import {
+  stringTypeList,
+  stringTypePatch,
+  stringTypeUpdated,
+  systemSettings,
+} from '../../shared/schemas/types'
+import { defineRoute, type RouteDef } from '../route-table'
+import { listStringTypes, updateStringType } from '../services/string-types'
+import { audit } from '../services/audit'
+
+export const settingsRoutes: RouteDef[] = [
+  defineRoute({
+    method: 'get',
+    path: '/string-types',
+    access: roles,
+    tag: 'settings',
+    summary: 'String types with lamp classes, thresholds and life model',
+    response: stringTypeList,
+    handler: async ({ deps }) => ({ items: await listStringTypes(deps.db) }),
+  }),
+  defineRoute({
+    method: 'patch',
+    path: '/string-types/:id',
+    access: ['admin'],
+    tag: 'settings',
+    summary: "Change a type's replace-now threshold or life model; its strings are restated at once",
+    params: idParam,
+    body: stringTypePatch,
+    response: stringTypeUpdated,
+    handler: async ({ deps, params, body, user, req }) => {
+      const result = await updateStringType(deps.db, params.id, body)
+      await audit(deps.db, {
+        userId: user.id,
+        action: 'update',
+        entity: 'string_type',
+        entityId: params.id,
+        details: body,
+        requestId: String(req.id),
+      })
+      return result
+    },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/settings/system',
+    access: ['admin'],
+    tag: 'settings',
+    summary: 'Where tiles, mail and travel times come from (set by environment)',
+    response: systemSettings,
+    handler: ({ deps }) => ({
+      tiles: {
+        source: deps.config.TILE_URL ? 'tile_server' : 'demo_basemap',
+        url: deps.config.TILE_URL ?? null,
+      },
+      mail: { transport: deps.config.SMTP_URL ? 'smtp' : 'local_fake', from: deps.config.MAIL_FROM },
+      routing: {
+        source: deps.config.ROUTING_URL ? 'routing_service' : 'straight_line',
+        url: deps.config.ROUTING_URL ?? null,
+      },
+      demoMode: deps.config.DEMO_MODE,
+      sessionHours: deps.config.SESSION_HOURS,
+    }),
+  }),
+]

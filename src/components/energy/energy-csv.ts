@@ -1,5 +1,5 @@
 import type { EnergyClient, EnergyLine, EnergyReport } from '../../api/energy'
-import type { CsvRow } from '../register/save-csv'
+import type { CsvRow } from '../common/csv'
 import { siteLines, typeLines } from './energy-format'
 
 const HEADER = [

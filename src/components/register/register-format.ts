@@ -1,7 +1,7 @@
 import dayjs from 'dayjs'
 import { STATE_WORDS } from '../common/string-state'
 import type { RegisterRow } from '../../api/register'
-import type { CsvRow } from './save-csv'
+import type { CsvRow } from '../common/csv'
 
 /** A calendar day, or a dash when the register has none. */
 export function day(iso: string | null): string {

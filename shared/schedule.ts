@@ -16,3 +16,9 @@ export function hhmm(minutes: number): string {
   const m = ((Math.round(minutes) % 1440) + 1440) % 1440
   return `${String(Math.floor(m / 60)).padStart(2, '0')}:${String(m % 60).padStart(2, '0')}`
 }
+
+/** Nights the lights burn in a season, counting both the switch-on and the last night (dates YYYY-MM-DD). */
+export function seasonNights(start: string | null, end: string | null): number | null {
+  if (!start || !end) return null
+  return Math.max(0, Math.round((Date.parse(end) - Date.parse(start)) / 86_400_000) + 1)
+}

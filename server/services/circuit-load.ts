@@ -4,11 +4,9 @@ import type { Db } from '../db'
 import { notFound } from '../errors'
 import { assessCircuit, stringLoad } from '../../shared/engine/index'
 import { engineInput } from '../../shared/string-status'
-import { burnHoursPerDay } from '../../shared/schedule'
+import { burnHoursPerDay, seasonNights } from '../../shared/schedule'
 import { loadType, type StringType } from './strings'
 import { conditionOf } from './string-engine'
-
-const DAY = 86_400_000
 
 export async function circuitLoad(db: Db, circuitId: number) {
   const c = await db('circuits as ci')
@@ -47,10 +45,7 @@ export async function circuitLoad(db: Db, circuitId: number) {
     const scale = type.supplyVolts / c.supplyVolts
     loads.push({ runningAmps: load.runningAmps * scale, peakAmps: load.peakAmps * scale, watts: load.watts })
   }
-  const seasonDays =
-    c.seasonStart && c.seasonEnd
-      ? Math.max(0, Math.round((Date.parse(c.seasonEnd) - Date.parse(c.seasonStart)) / DAY))
-      : undefined
+  const seasonDays = seasonNights(c.seasonStart, c.seasonEnd) ?? undefined
   const result = loads.length
     ? assessCircuit({
         supplyVolts: c.supplyVolts,

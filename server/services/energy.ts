@@ -3,11 +3,9 @@
 import type { Db } from '../db'
 import { energyUse, stringLoad } from '../../shared/engine/index'
 import { engineInput } from '../../shared/string-status'
-import { burnHoursPerDay } from '../../shared/schedule'
+import { burnHoursPerDay, seasonNights } from '../../shared/schedule'
 import { loadType, type StringType } from './strings'
 import { conditionOf } from './string-engine'
-
-const DAY = 86_400_000
 
 interface Acc {
   strings: number
@@ -42,10 +40,7 @@ export async function energyReport(db: Db, now = new Date()) {
     generatedAt: now.toISOString(),
     clients: clients.map((c) => {
       const burn = burnHoursPerDay(c.switchOn, c.switchOff)
-      const seasonDays =
-        c.seasonStart && c.seasonEnd
-          ? Math.max(0, Math.round((Date.parse(c.seasonEnd) - Date.parse(c.seasonStart)) / DAY))
-          : 0
+      const seasonDays = seasonNights(c.seasonStart, c.seasonEnd) ?? 0
       const bySite = new Map<string, Acc>()
       const byType = new Map<string, Acc>()
       const siteNames = new Map<string, string>()

@@ -1,7 +1,7 @@
 import type { Db } from '../../server/db'
 import { along, toLatLng, type Rng } from './geo'
 import { clientsDef, streets, type StreetDef } from './town'
-import { typeDefs } from './types'
+import { typeDefs } from '../../shared/lamp-catalogue'
 
 export interface SeedString {
   assetTag: string

@@ -1,4 +1,5 @@
 import type { TypeSpec } from '../../../shared/string-status'
+import { typeDefs } from '../../../shared/lamp-catalogue'
 
 export interface LampPreset extends TypeSpec {
   id: string
@@ -10,69 +11,8 @@ export interface LampPreset extends TypeSpec {
   classes: { label: string; count: number; ratedVolts: number; ratedAmps: number; shunted: boolean }[]
 }
 
-// The demo town's lamp types (seeds/demo/types.ts), so what-ifs match the strings on the map.
-// Filament figures: life exponent 13 and replace-now at 105 % are the engine's defaults
-// (shared/engine/defaults.ts, with sources); Weibull shape 2.8 fits the ReliaWiki lamp sample.
-export const PRESETS: LampPreset[] = [
-  {
-    id: 'catenary-20',
-    label: 'Catenary: 19 × 12 V + 12 V fuse lamp',
-    technology: 'filament',
-    wiring: 'series',
-    supplyVolts: 230,
-    lifeExponent: 13,
-    replaceAtRatio: 1.05,
-    ratedLifeHours: 1500,
-    weibullShape: 2.8,
-    shuntFailProbability: 0.02,
-    classes: [
-      { label: 'Lamps', count: 19, ratedVolts: 12, ratedAmps: 0.5, shunted: true },
-      { label: 'Fuse lamp', count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
-    ],
-  },
-  {
-    id: 'festoon-30',
-    label: 'Festoon: 29 × 8 V + 8 V fuse lamp',
-    technology: 'filament',
-    wiring: 'series',
-    supplyVolts: 230,
-    lifeExponent: 13,
-    replaceAtRatio: 1.05,
-    ratedLifeHours: 2000,
-    weibullShape: 2.8,
-    shuntFailProbability: 0.02,
-    classes: [
-      { label: 'Lamps', count: 29, ratedVolts: 8, ratedAmps: 0.3, shunted: true },
-      { label: 'Fuse lamp', count: 1, ratedVolts: 8, ratedAmps: 0.3, shunted: false },
-    ],
-  },
-  {
-    id: 'tree-wrap-100',
-    label: 'Tree wrap: 100 × 2.5 V mini lamps',
-    technology: 'filament',
-    wiring: 'series',
-    supplyVolts: 230,
-    lifeExponent: 13,
-    replaceAtRatio: 1.05,
-    ratedLifeHours: 3000,
-    weibullShape: 2.8,
-    shuntFailProbability: 0.03,
-    classes: [{ label: 'Mini lamps', count: 100, ratedVolts: 2.5, ratedAmps: 0.17, shunted: true }],
-  },
-  {
-    id: 'motif-led',
-    label: 'LED motif, 230 V parallel',
-    technology: 'led',
-    wiring: 'parallel',
-    supplyVolts: 230,
-    lifeExponent: 13,
-    replaceAtRatio: 1.05,
-    ratedLifeHours: 30000,
-    weibullShape: 1.5,
-    shuntFailProbability: 0,
-    classes: [{ label: 'LED modules', count: 12, ratedVolts: 230, ratedAmps: 0.01, shunted: false }],
-  },
-]
+// The catalogue of common string types (also the demo town's), so what-ifs match the strings on the map.
+export const PRESETS: LampPreset[] = typeDefs.map((t) => ({ ...t, id: t.code }))
 
 export interface CustomSpec {
   count: number

@@ -1,8 +1,11 @@
-// The demo's string types. Ratings are typical of the products crews hang (common practice, no
-// single source); life exponent 13 and Weibull shape 2.8 are the engine's documented defaults.
+// A catalogue of common string types, used by the demo town and offered as calculator presets.
+// Ratings are typical of the products crews hang (common practice, no single source); life exponent
+// 13 and Weibull shape 2.8 are the engine's documented defaults (shared/engine/defaults.ts).
 export interface TypeDef {
   code: string
   name: string
+  /** a short name for pickers */
+  label: string
   technology: 'filament' | 'led'
   wiring: 'series' | 'parallel'
   supplyVolts: number
@@ -18,6 +21,7 @@ export interface TypeDef {
 export const typeDefs: TypeDef[] = [
   {
     code: 'CAT-F20',
+    label: 'Catenary: 19 × 12 V + 12 V fuse lamp',
     name: 'Cross-street catenary, 19 × 12 V filament + 12 V fuse lamp',
     technology: 'filament',
     wiring: 'series',
@@ -29,12 +33,13 @@ export const typeDefs: TypeDef[] = [
     shuntFailProbability: 0.02,
     lengthM: 16,
     classes: [
-      { label: 'lamp', count: 19, ratedVolts: 12, ratedAmps: 0.5, shunted: true },
-      { label: 'fuse lamp', count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
+      { label: 'Lamp', count: 19, ratedVolts: 12, ratedAmps: 0.5, shunted: true },
+      { label: 'Fuse lamp', count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
     ],
   },
   {
     code: 'FES-F30',
+    label: 'Festoon: 29 × 8 V + 8 V fuse lamp',
     name: 'Festoon, 29 × 8 V filament + 8 V fuse lamp',
     technology: 'filament',
     wiring: 'series',
@@ -46,12 +51,13 @@ export const typeDefs: TypeDef[] = [
     shuntFailProbability: 0.02,
     lengthM: 30,
     classes: [
-      { label: 'lamp', count: 29, ratedVolts: 8, ratedAmps: 0.3, shunted: true },
-      { label: 'fuse lamp', count: 1, ratedVolts: 8, ratedAmps: 0.3, shunted: false },
+      { label: 'Lamp', count: 29, ratedVolts: 8, ratedAmps: 0.3, shunted: true },
+      { label: 'Fuse lamp', count: 1, ratedVolts: 8, ratedAmps: 0.3, shunted: false },
     ],
   },
   {
     code: 'WRAP-M100',
+    label: 'Tree wrap: 100 × 2.5 V mini lamps',
     name: 'Tree wrap, 100 × 2.5 V mini lamps',
     technology: 'filament',
     wiring: 'series',
@@ -62,10 +68,11 @@ export const typeDefs: TypeDef[] = [
     replaceAtRatio: 1.05,
     shuntFailProbability: 0.03,
     lengthM: 20,
-    classes: [{ label: 'mini lamp', count: 100, ratedVolts: 2.5, ratedAmps: 0.17, shunted: true }],
+    classes: [{ label: 'Mini lamp', count: 100, ratedVolts: 2.5, ratedAmps: 0.17, shunted: true }],
   },
   {
     code: 'MOT-L',
+    label: 'LED motif, 230 V parallel',
     name: 'Column motif, LED 230 V',
     technology: 'led',
     wiring: 'parallel',
@@ -80,6 +87,7 @@ export const typeDefs: TypeDef[] = [
   },
   {
     code: 'CUR-L',
+    label: 'LED curtain, 24 V parallel',
     name: 'Curtain, LED 24 V',
     technology: 'led',
     wiring: 'parallel',

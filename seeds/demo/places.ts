@@ -114,7 +114,7 @@ function planStreet(s: StreetDef, r: Rng) {
         const to = half ? b : mid
         out.push({
           assetTag: tag(),
-          name: `${s.name} festoon ${n + 1}`,
+          name: `${s.name} festoon ${n}`,
           typeCode: 'FES-F30',
           structureRef: null,
           geometry: 'line',
@@ -136,7 +136,7 @@ function planStreet(s: StreetDef, r: Rng) {
       const c = toLatLng(x, y)
       out.push({
         assetTag: tag(),
-        name: `${s.name} tree wrap ${n + 1}`,
+        name: `${s.name} tree wrap ${n}`,
         typeCode: i % 7 === 6 ? 'CUR-L' : 'WRAP-M100',
         structureRef: null,
         geometry: 'point',

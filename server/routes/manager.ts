@@ -2,6 +2,8 @@ import { energyReport, registerList, registerQuery } from '../../shared/schemas/
 import { defineRoute, type RouteDef } from '../route-table'
 import { energyReport as buildEnergy } from '../services/energy'
 import { listRegister } from '../services/register'
+import { clientReport } from '../services/client-report'
+import { clientReport as clientReportSchema, clientReportQuery } from '../../shared/schemas/client-report'
 
 export const managerRoutes: RouteDef[] = [
   defineRoute({
@@ -22,5 +24,16 @@ export const managerRoutes: RouteDef[] = [
     query: registerQuery,
     response: registerList,
     handler: ({ deps, query }) => listRegister(deps.db, query),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/client-report',
+    access: ['manager', 'admin'],
+    tag: 'register',
+    summary:
+      'A period report for one client: register state, work done, faults against contract times, reports, energy',
+    query: clientReportQuery,
+    response: clientReportSchema,
+    handler: ({ deps, query }) => clientReport(deps.db, query),
   }),
 ]

@@ -42,3 +42,27 @@ describe('register', () => {
     expect(crew.status).toBe(403)
   })
 })
+
+describe('client report', () => {
+  it('counts the season’s visits and relamps under isolation for a client, and faults against contract time', async () => {
+    const client = await t.db('clients').where({ name: 'Wrenfold Town Council' }).first('id')
+    const res = await request(t.app)
+      .get(`/api/v1/client-report?clientId=${client.id}`)
+      .set('Authorization', manager)
+    expect(res.status).toBe(200)
+    const visits = await t
+      .db('visits as v')
+      .join('strings as s', 's.id', 'v.stringId')
+      .join('sites as si', 'si.id', 's.siteId')
+      .where('si.clientId', client.id)
+      .where('v.visitedAt', '>=', `${res.body.from} 00:00:00`)
+      .count({ n: '*' })
+    expect(res.body.visits.total).toBe(Number(visits[0].n))
+    expect(res.body.visits.relampsIsolated).toBeLessThanOrEqual(res.body.visits.relamps)
+    expect(res.body.faults.closedOnTime).toBeLessThanOrEqual(res.body.faults.closed)
+    expect(res.body.strings.total).toBe(
+      Object.values(res.body.strings.byStatus as Record<string, number>).reduce((a, b) => a + b, 0),
+    )
+    expect(res.body.client.standardHours).toBe(36)
+  })
+})

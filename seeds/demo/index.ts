@@ -123,6 +123,7 @@ export async function seedDemo(db: Db, now: Date) {
   const safety = users.find((u) => u.role === 'safety')!
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)
+  await seedClosedFaults(db, r)
   await refreshQueue(db, now)
   await backdateQueue(db, r, now)
   await publishTonight(db, now, users.find((u) => u.role === 'supervisor')!.id)
@@ -134,6 +135,7 @@ async function backdateQueue(db: Db, r: ReturnType<typeof rng>, now: Date) {
   const items = await db('queueItems as q')
     .join('clients as c', 'c.id', 'q.clientId')
     .whereIn('q.kind', ['replace_now', 'dark'])
+    .where('q.state', 'open')
     .select('q.id', 'q.severity', 'c.responseEmergencyHours', 'c.responseStandardHours')
   for (const it of items) {
     const openedAt = new Date(now.getTime() - r.int(2, 44) * 3_600_000)
@@ -154,4 +156,33 @@ async function publishTonight(db: Db, now: Date, supervisorId: number) {
   // Seeding sends no e-mail: the crews "already had" tonight's sheets.
   const silent = { send: async () => ({ id: 0, sent: false }) }
   await publishRuns(db, silent, loadConfig(), supervisorId, { date, runs })
+}
+
+/** The season so far as the queue saw it: each relamp closed a fault found some hours earlier. */
+async function seedClosedFaults(db: Db, r: ReturnType<typeof rng>) {
+  const relamps = await db('visits as v')
+    .join('strings as s', 's.id', 'v.stringId')
+    .join('sites as si', 'si.id', 's.siteId')
+    .where('v.replaced', '>', 0)
+    .select('v.id', 'v.visitedAt', 'v.replaced', 's.id as stringId', 's.assetTag', 's.siteId', 'si.clientId')
+  const rows = relamps.map((v) => {
+    const closedAt = new Date(v.visitedAt)
+    // Most faults are fixed within the 36 h standard response; a few ran late.
+    const openedAt = new Date(closedAt.getTime() - (r.chance(0.9) ? r.int(2, 30) : r.int(37, 50)) * 3_600_000)
+    return {
+      kind: 'replace_now',
+      openKey: null,
+      stringId: v.stringId,
+      siteId: v.siteId,
+      clientId: v.clientId,
+      severity: 'standard',
+      state: 'closed',
+      openedAt,
+      dueBy: new Date(openedAt.getTime() + 36 * 3_600_000),
+      closedAt,
+      closedByVisitId: v.id,
+      summary: `${v.assetTag}: ${v.replaced} lamps out`,
+    }
+  })
+  for (let i = 0; i < rows.length; i += 200) await db('queueItems').insert(rows.slice(i, i + 200))
 }

@@ -6,10 +6,7 @@ export const DUE_SOON_HOURS = 12
 
 /** Open work against each client's contract response times: what is late and what soon will be. */
 export async function overdueReport(db: Db, now = new Date()) {
-  const items = [
-    ...(await listQueue(db, { state: 'open' }, now)),
-    ...(await listQueue(db, { state: 'snoozed' }, now)),
-  ]
+  const items = await listQueue(db, { state: 'active' }, now)
   const clients = await db('clients')
     .orderBy('name')
     .select('id', 'name', 'contractRef', 'responseEmergencyHours', 'responseStandardHours')

@@ -10,8 +10,12 @@ export interface QueueFilter {
   siteId?: number
   kind?: QueueItem['kind']
   crewId?: number
-  state: 'open' | 'snoozed' | 'closed' | 'all'
+  /** 'active' is open or snoozed: work still waiting. */
+  state: 'open' | 'snoozed' | 'closed' | 'active' | 'all'
+  ids?: number[]
 }
+
+const STATES = { active: ['open', 'snoozed'], all: ['open', 'snoozed', 'closed'] } as const
 
 export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {
   const q = db('queueItems as q')
@@ -44,8 +48,9 @@ export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promi
       'r.lng as rLng',
       db.raw('(select count(*) from queue_items m where m.merged_into_id = q.id) as merged_count'),
     )
-  if (f.state !== 'all') q.where('q.state', f.state)
-  else q.whereIn('q.state', ['open', 'snoozed', 'closed'])
+  if (f.state === 'active' || f.state === 'all') q.whereIn('q.state', [...STATES[f.state]])
+  else q.where('q.state', f.state)
+  if (f.ids) q.whereIn('q.id', f.ids)
   if (f.clientId) q.where('q.clientId', f.clientId)
   if (f.siteId) q.where('si.id', f.siteId)
   if (f.kind) q.where('q.kind', f.kind)

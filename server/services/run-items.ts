@@ -30,9 +30,7 @@ export interface ItemInfo {
 }
 
 export async function loadItems(db: Db, ids: number[]): Promise<Map<number, ItemInfo>> {
-  const all = await listQueue(db, { state: 'all' })
-  const wanted = new Set(ids)
-  const picked = all.filter((i) => wanted.has(i.id))
+  const picked = await listQueue(db, { state: 'all', ids })
   const missing = ids.filter((id) => !picked.some((p) => p.id === id))
   if (missing.length) throw badRequest('unknown_items', 'Some queue items do not exist.', { missing })
   const noPlace = picked.filter((p) => p.lat == null || p.lng == null)

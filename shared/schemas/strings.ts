@@ -36,6 +36,30 @@ export type MapItem = z.infer<typeof mapItem>
 export const tagParam = z.object({ tag: z.string().trim().min(2).max(40) })
 export const tagLookup = z.object({ id: z.number(), assetTag: z.string() })
 
+/** A string type: lamp classes, thresholds and life model. */
+export const stringTypeSchema = z.object({
+  id: z.number(),
+  code: z.string(),
+  name: z.string(),
+  technology: z.enum(['filament', 'led']),
+  wiring: z.enum(['series', 'parallel']),
+  supplyVolts: z.number(),
+  ratedLifeHours: z.number(),
+  lifeExponent: z.number(),
+  weibullShape: z.number(),
+  replaceAtRatio: z.number(),
+  shuntFailProbability: z.number(),
+  classes: z.array(
+    z.object({
+      label: z.string(),
+      count: z.number(),
+      ratedVolts: z.number(),
+      ratedAmps: z.number(),
+      shunted: z.boolean(),
+    }),
+  ),
+})
+
 /** The string page: record, type, place, circuit, certificates, history and the engine's verdict. */
 export const stringDetail = z.object({
   id: z.number(),
@@ -53,28 +77,7 @@ export const stringDetail = z.object({
   installedOn: z.string().nullable(),
   lampAgeHours: z.number(),
   lastVisitAt: z.string().nullable(),
-  type: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string(),
-    technology: z.enum(['filament', 'led']),
-    wiring: z.enum(['series', 'parallel']),
-    supplyVolts: z.number(),
-    ratedLifeHours: z.number(),
-    lifeExponent: z.number(),
-    weibullShape: z.number(),
-    replaceAtRatio: z.number(),
-    shuntFailProbability: z.number(),
-    classes: z.array(
-      z.object({
-        label: z.string(),
-        count: z.number(),
-        ratedVolts: z.number(),
-        ratedAmps: z.number(),
-        shunted: z.boolean(),
-      }),
-    ),
-  }),
+  type: stringTypeSchema,
   site: z.object({
     id: z.number(),
     name: z.string(),

@@ -1,28 +1,7 @@
 import { z } from 'zod'
+import { stringTypeSchema } from './strings'
 
-export const stringTypeRow = z.object({
-  id: z.number(),
-  code: z.string(),
-  name: z.string(),
-  technology: z.enum(['filament', 'led']),
-  wiring: z.enum(['series', 'parallel']),
-  supplyVolts: z.number(),
-  ratedLifeHours: z.number(),
-  lifeExponent: z.number(),
-  weibullShape: z.number(),
-  replaceAtRatio: z.number(),
-  shuntFailProbability: z.number(),
-  strings: z.number(),
-  classes: z.array(
-    z.object({
-      label: z.string(),
-      count: z.number(),
-      ratedVolts: z.number(),
-      ratedAmps: z.number(),
-      shunted: z.boolean(),
-    }),
-  ),
-})
+export const stringTypeRow = stringTypeSchema.extend({ strings: z.number() })
 export const stringTypeList = z.object({ items: z.array(stringTypeRow) })
 
 // Bounds: life exponent 12–16 is the published range (trade-reference §3); a replace-now ratio below

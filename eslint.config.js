@@ -5,7 +5,7 @@ import prettier from 'eslint-config-prettier'
 import globals from 'globals'
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', '.test-data/**', 'uploads/**', 'dev-dist/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', '.test-data*/**', 'uploads/**', 'dev-dist/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...pluginVue.configs['flat/recommended'],

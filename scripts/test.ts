@@ -4,7 +4,11 @@ import { spawnSync } from 'node:child_process'
 import { openDatabase, prepareDatabase, buildClientIfStale } from './setup'
 
 const port = Number(process.env.DB_TEST_PORT ?? 3308)
-const db = await openDatabase({ dir: '.test-data', port, name: 'lampwright_test', fresh: true })
+// TEST_DATA_DIR lets two checkouts (or two developers' runs) test side by side on their own databases;
+// TEST_QUICK=1 skips lint, type checks and the client build while iterating on one test file.
+const dir = process.env.TEST_DATA_DIR ?? '.test-data'
+const quick = process.env.TEST_QUICK === '1'
+const db = await openDatabase({ dir, port, name: 'lampwright_test', fresh: true })
 let code = 0
 const run = (
   label: string,
@@ -23,9 +27,11 @@ const run = (
 }
 try {
   await prepareDatabase(db.url, { seed: 'always' })
-  run('lint', 'npm', ['run', '--silent', 'lint'])
-  run('type checks', 'npm', ['run', '--silent', 'typecheck'])
-  if (code === 0) buildClientIfStale()
+  if (!quick) {
+    run('lint', 'npm', ['run', '--silent', 'lint'])
+    run('type checks', 'npm', ['run', '--silent', 'typecheck'])
+    if (code === 0) buildClientIfStale()
+  }
   const env = {
     ...process.env,
     NODE_ENV: 'test',

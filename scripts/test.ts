@@ -39,7 +39,8 @@ try {
     JWT_SECRET: 'test-secret-that-is-long-enough-0123456789',
   }
   // One project at a time, each on freshly seeded demo data, so no suite sees another's writes.
-  const extra = process.argv.slice(2)
+  // `node scripts/test.ts -- <args>` passes a literal '--' that vitest would read as "files follow".
+  const extra = process.argv.slice(2).filter((a, i) => !(i === 0 && a === '--'))
   const projects = extra.length ? [null] : ['shared', 'server', 'e2e']
   const ready = code === 0
   for (const project of ready ? projects : []) {

@@ -7,7 +7,7 @@ import {
 import { defineRoute, type RouteDef } from '../route-table'
 import { listCertificates, recordCertificate } from '../services/certificates'
 import { refreshCertificateItems } from '../jobs/refresh-queue'
-import { audit } from '../services/audit'
+import { audited } from '../services/audit'
 
 export const certificateRoutes: RouteDef[] = [
   defineRoute({
@@ -29,15 +29,19 @@ export const certificateRoutes: RouteDef[] = [
     body: certificateBody,
     response: certificateCreated,
     status: 201,
-    handler: async ({ deps, body, user }) => {
-      const created = await recordCertificate(deps.db, user.id, body)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'certificate',
-        entity: 'certificate',
-        entityId: created.id,
-        details: { kind: body.kind, result: created.result },
-      })
+    handler: async ({ deps, body, user, req }) => {
+      const created = await audited(
+        deps.db,
+        (trx) => recordCertificate(trx, user.id, body),
+        (c) => ({
+          userId: user.id,
+          action: 'certificate',
+          entity: 'certificate',
+          entityId: c.id,
+          details: { kind: body.kind, result: c.result },
+          requestId: String(req.id),
+        }),
+      )
       await refreshCertificateItems(deps.db, new Date())
       return created
     },

@@ -2,7 +2,7 @@ import { idParam } from '../../shared/schemas/common'
 import { isolationAuditList, isolationQuery, reviewBody } from '../../shared/schemas/isolations'
 import { defineRoute, type RouteDef } from '../route-table'
 import { listIsolationAudits, reviewIsolation } from '../services/isolation-audit'
-import { audit } from '../services/audit'
+import { audited } from '../services/audit'
 
 export const isolationRoutes: RouteDef[] = [
   defineRoute({
@@ -24,15 +24,18 @@ export const isolationRoutes: RouteDef[] = [
     params: idParam,
     body: reviewBody,
     handler: async ({ deps, params, body, user, req }) => {
-      await reviewIsolation(deps.db, params.id, user.id, body.decision, body.note)
-      await audit(deps.db, {
-        userId: user.id,
-        action: `isolation_${body.decision}`,
-        entity: 'isolation',
-        entityId: params.id,
-        details: body,
-        requestId: String(req.id),
-      })
+      await audited(
+        deps.db,
+        (trx) => reviewIsolation(trx, params.id, user.id, body.decision, body.note),
+        () => ({
+          userId: user.id,
+          action: `isolation_${body.decision}`,
+          entity: 'isolation',
+          entityId: params.id,
+          details: body,
+          requestId: String(req.id),
+        }),
+      )
     },
   }),
 ]

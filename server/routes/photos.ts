@@ -24,7 +24,7 @@ export const photoRoutes: RouteDef[] = [
       const files = Array.isArray(req.files) ? req.files : []
       // Optional here: the phone's outbox sends one so a repeated upload is not stored twice.
       const key = req.header('Idempotency-Key')?.trim().slice(0, 64) || null
-      const { created, items } = await savePhotos(deps.db, deps.uploadDir, params.id, user.id, files, key)
+      const { created, items } = await savePhotos(deps.db, deps.uploadDir, params.id, user, files, key)
       if (!created) res.status(200)
       return { items }
     },

@@ -11,7 +11,7 @@ import {
 import { defineRoute, type RouteDef } from '../route-table'
 import { closeItem, listQueue, mergeItems, snoozeItem } from '../services/queue'
 import { refreshQueue } from '../jobs/refresh-queue'
-import { audit } from '../services/audit'
+import { audited } from '../services/audit'
 
 const queueRoles = ['supervisor', 'manager', 'admin'] as const
 
@@ -46,15 +46,19 @@ export const queueRoutes: RouteDef[] = [
     summary: 'Snooze an item until a time, with a reason',
     params: idParam,
     body: snoozeBody,
-    handler: async ({ deps, params, body, user }) => {
-      await snoozeItem(deps.db, params.id, new Date(body.until), body.reason)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'snooze',
-        entity: 'queue_item',
-        entityId: params.id,
-        details: body,
-      })
+    handler: async ({ deps, params, body, user, req }) => {
+      await audited(
+        deps.db,
+        (trx) => snoozeItem(trx, params.id, new Date(body.until), body.reason),
+        () => ({
+          userId: user.id,
+          action: 'snooze',
+          entity: 'queue_item',
+          entityId: params.id,
+          details: body,
+          requestId: String(req.id),
+        }),
+      )
     },
   }),
   defineRoute({
@@ -64,15 +68,19 @@ export const queueRoutes: RouteDef[] = [
     tag: 'queue',
     summary: 'Merge items into one (duplicates of the same fault)',
     body: mergeBody,
-    handler: async ({ deps, body, user }) => {
-      await mergeItems(deps.db, body.into, body.ids)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'merge',
-        entity: 'queue_item',
-        entityId: body.into,
-        details: body,
-      })
+    handler: async ({ deps, body, user, req }) => {
+      await audited(
+        deps.db,
+        (trx) => mergeItems(trx, body.into, body.ids),
+        () => ({
+          userId: user.id,
+          action: 'merge',
+          entity: 'queue_item',
+          entityId: body.into,
+          details: body,
+          requestId: String(req.id),
+        }),
+      )
     },
   }),
   defineRoute({
@@ -83,15 +91,19 @@ export const queueRoutes: RouteDef[] = [
     summary: 'Close an item without a visit, with a reason',
     params: idParam,
     body: closeBody,
-    handler: async ({ deps, params, body, user }) => {
-      await closeItem(deps.db, params.id, body.reason)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'close',
-        entity: 'queue_item',
-        entityId: params.id,
-        details: body,
-      })
+    handler: async ({ deps, params, body, user, req }) => {
+      await audited(
+        deps.db,
+        (trx) => closeItem(trx, params.id, body.reason),
+        () => ({
+          userId: user.id,
+          action: 'close',
+          entity: 'queue_item',
+          entityId: params.id,
+          details: body,
+          requestId: String(req.id),
+        }),
+      )
     },
   }),
 ]

@@ -8,7 +8,7 @@ import {
 } from '../../shared/schemas/types'
 import { defineRoute, type RouteDef } from '../route-table'
 import { listStringTypes, updateStringType } from '../services/string-types'
-import { audit } from '../services/audit'
+import { audited } from '../services/audit'
 
 export const settingsRoutes: RouteDef[] = [
   defineRoute({
@@ -29,18 +29,19 @@ export const settingsRoutes: RouteDef[] = [
     params: idParam,
     body: stringTypePatch,
     response: stringTypeUpdated,
-    handler: async ({ deps, params, body, user, req }) => {
-      const result = await updateStringType(deps.db, params.id, body)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'update',
-        entity: 'string_type',
-        entityId: params.id,
-        details: body,
-        requestId: String(req.id),
-      })
-      return result
-    },
+    handler: ({ deps, params, body, user, req }) =>
+      audited(
+        deps.db,
+        (trx) => updateStringType(trx, params.id, body),
+        () => ({
+          userId: user.id,
+          action: 'update',
+          entity: 'string_type',
+          entityId: params.id,
+          details: body,
+          requestId: String(req.id),
+        }),
+      ),
   }),
   defineRoute({
     method: 'get',

@@ -20,3 +20,16 @@ export async function audit(db: Db, e: AuditEntry): Promise<void> {
     requestId: e.requestId ?? null,
   })
 }
+
+/** Runs a change and writes its audit row in one transaction: both are saved or neither is. */
+export async function audited<T>(
+  db: Db,
+  change: (trx: Db) => Promise<T>,
+  entry: (result: T) => AuditEntry,
+): Promise<T> {
+  return db.transaction(async (trx) => {
+    const result = await change(trx as unknown as Db)
+    await audit(trx as unknown as Db, entry(result))
+    return result
+  })
+}

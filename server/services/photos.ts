@@ -4,7 +4,7 @@ import { mkdir, rm, writeFile } from 'node:fs/promises'
 import { join, resolve } from 'node:path'
 import type { Response } from 'express'
 import type { Db } from '../db'
-import { badRequest, notFound } from '../errors'
+import { badRequest, forbidden, notFound } from '../errors'
 import type { PhotoItem } from '../../shared/schemas/photos'
 import { checkImage, type AcceptedMime } from './photos/checks'
 import type { Encoded } from './photos/image'
@@ -38,6 +38,25 @@ async function requireVisit(db: Db, visitId: number): Promise<void> {
   if (!(await db('visits').where({ id: visitId }).first('id'))) throw notFound('Visit')
 }
 
+export interface Uploader {
+  id: number
+  role: string
+  crewId: number | null
+}
+
+/** Photos belong to a visit's record: its author, the author's crew, or a supervisor may add them. */
+async function requireVisitForUpload(db: Db, visitId: number, by: Uploader): Promise<void> {
+  const visit = await db('visits')
+    .leftJoin('users', 'users.id', 'visits.userId')
+    .where('visits.id', visitId)
+    .first('visits.userId', 'visits.crewId', { authorCrewId: 'users.crewId' })
+  if (!visit) throw notFound('Visit')
+  if (by.role === 'supervisor' || visit.userId === by.id) return
+  const crews = [visit.crewId, visit.authorCrewId].filter((c) => c !== null && c !== undefined)
+  if (by.crewId !== null && crews.includes(by.crewId)) return
+  throw forbidden("Only the visit's author, a member of the author's crew or a supervisor may add photos.")
+}
+
 export async function listPhotos(db: Db, visitId: number): Promise<PhotoItem[]> {
   await requireVisit(db, visitId)
   const rows = await db('photos')
@@ -55,12 +74,12 @@ export async function savePhotos(
   db: Db,
   uploadDir: string,
   visitId: number,
-  userId: number,
+  by: Uploader,
   files: UploadedFile[],
   uploadKey: string | null = null,
 ): Promise<{ created: boolean; items: PhotoItem[] }> {
+  await requireVisitForUpload(db, visitId, by)
   if (!files.length) throw badRequest('no_photo', 'Attach at least one photo in the form field "photo".')
-  await requireVisit(db, visitId)
   if (uploadKey) {
     const earlier = await db('photos')
       .where({ visitId, uploadKey })
@@ -106,7 +125,7 @@ export async function savePhotos(
           takenAt: p.meta.takenAt,
           lat: p.meta.lat,
           lng: p.meta.lng,
-          userId,
+          userId: by.id,
           uploadKey,
         })
         out.push(Number(id))

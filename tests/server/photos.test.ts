@@ -20,7 +20,9 @@ beforeAll(async () => {
   t = await makeTestApp()
   dir = await mkdtemp(join(tmpdir(), 'lampwright-photos-'))
   t.deps.uploadDir = dir
-  visitId = (await t.db('visits').first('id')).id
+  // A visit written by the demo crew account itself, so that account is its author.
+  const crewUser = await t.db('users').where({ email: 'crew@example.org' }).first('id', 'crewId')
+  visitId = (await t.db('visits').where({ userId: crewUser.id }).first('id')).id
 })
 afterAll(async () => {
   if (created.length) await t.db('photos').whereIn('id', created).delete()
@@ -214,6 +216,32 @@ describe('uploading visit photos', () => {
       .set('Authorization', await bearer('manager'))
       .attach('photo', await jpeg(), { filename: 'a.jpg', contentType: 'image/jpeg' })
     expect(manager.status).toBe(403)
+  })
+
+  // Who may add photos to a visit's record: its author, the author's crew, or a supervisor
+  // (the rule of this product, issue 8; common practice, no source).
+  it("refuses a crew member of another crew with 403 forbidden and stores nothing, and lets the author's crewmate and a supervisor add photos", async () => {
+    const signIn = async (email: string) => {
+      const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email, password: 'lampwright' })
+      expect(res.status).toBe(200)
+      return `Bearer ${res.body.token}`
+    }
+    const post = async (auth: string) => {
+      const res = await request(t.app)
+        .post(`/api/v1/visits/${visitId}/photos`)
+        .set('Authorization', auth)
+        .attach('photo', await jpeg(), { filename: 'a.jpg', contentType: 'image/jpeg' })
+      if (res.status === 201) created.push(...res.body.items.map((i: { id: number }) => i.id))
+      return res
+    }
+    const before = await t.db('photos').where({ visitId }).count({ n: '*' })
+    // Priya is in crew Tallow; the demo crew account is in crew Lantern (seeds/demo/people.ts).
+    const stranger = await post(await signIn('priya.castellane@example.org'))
+    expect([stranger.status, stranger.body.error?.code]).toEqual([403, 'forbidden'])
+    expect(await t.db('photos').where({ visitId }).count({ n: '*' })).toEqual(before)
+    // Dewi is the demo crew account's crewmate in Lantern.
+    expect((await post(await signIn('dewi.marchbank@example.org'))).status).toBe(201)
+    expect((await post(await bearer('supervisor'))).status).toBe(201)
   })
 })
 

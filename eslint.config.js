@@ -37,5 +37,22 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // The demo town is data the seed loads into the database: the app never imports it.
+    files: ['server/**/*.ts', 'src/**/*.ts', 'src/**/*.vue'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/seeds/**', '**/seeds'],
+              message: 'server/ and src/ must not import the demo seed: read what it stored instead',
+            },
+          ],
+        },
+      ],
+    },
+  },
   prettier,
 )

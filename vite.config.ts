@@ -1,11 +1,25 @@
 /// <reference types="vitest/config" />
-import { defineConfig } from 'vite'
+import { defineConfig, type ProxyOptions } from 'vite'
 import vue from '@vitejs/plugin-vue'
 import { quasar, transformAssetUrls } from '@quasar/vite-plugin'
 import { fileURLToPath } from 'node:url'
 import { VitePWA } from 'vite-plugin-pwa'
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '3000'}`
+
+// The API refuses cookie-authenticated writes from other origins, and this proxy sends them on as
+// the API's own host. A request whose Origin is this dev server itself gets the API's origin instead;
+// any other Origin passes unchanged and is refused as it would be in production.
+const api: ProxyOptions = {
+  target: apiTarget,
+  changeOrigin: true,
+  configure: (proxy) => {
+    proxy.on('proxyReq', (proxyReq, req) => {
+      if (req.headers.origin && req.headers.origin === `http://${req.headers.host}`)
+        proxyReq.setHeader('origin', apiTarget)
+    })
+  },
+}
 
 export default defineConfig({
   plugins: [
@@ -72,7 +86,7 @@ export default defineConfig({
     }),
     // ---- end PWA ------------------------------------------------------------------------------------
   ],
-  server: { port: 5173, proxy: { '/api': apiTarget, '/uploads': apiTarget } },
+  server: { port: 5173, proxy: { '/api': api, '/uploads': apiTarget } },
   build: { outDir: 'dist', chunkSizeWarningLimit: 900 },
   test: {
     projects: [

@@ -1,33 +1,47 @@
 // npm start: set up everything (after scripts/bootstrap.sh installed packages) and serve the app.
-import { openDatabase, prepareDatabase, buildClientIfStale } from './setup'
+// A failed start says in one line what went wrong and what to do, and stops the private MariaDB
+// it started; LOG_LEVEL=debug adds the full error.
+import { openDatabase, prepareDatabase, buildClientIfStale, demoModeSetting, type Database } from './setup'
 import { startServer } from '../server/index'
+import { loadConfig } from '../server/config'
+import { reportStartError } from '../server/start-errors'
 import { demoAccounts, DEMO_PASSWORD } from '../seeds/demo/accounts'
 
 const devMode = process.argv.includes('--api-only')
-const db = await openDatabase({ dir: '.data', port: Number(process.env.DB_PORT ?? 3307), name: 'lampwright' })
+// The user's DEMO_MODE wins; else demo mode only on the private database (also for the seed's config).
+process.env.DEMO_MODE = demoModeSetting(process.env)
+
+let db: Database | undefined
+let server: { port: number; close(): Promise<void> } | undefined
 let stopping = false
-const shutdown = async (server?: { close(): Promise<void> }) => {
+const shutdown = async () => {
   if (stopping) return
   stopping = true
   console.log('\nStopping Lampwright...')
   await server?.close()
-  await db.stop()
+  await db?.stop()
   process.exit(0)
 }
 process.once('SIGINT', () => void shutdown())
 process.once('SIGTERM', () => void shutdown())
 
-await prepareDatabase(db.url, { seed: 'if-empty' })
-if (!devMode) buildClientIfStale()
-const server = await startServer({ ...process.env, DATABASE_URL: db.url })
-process.removeAllListeners('SIGINT')
-process.removeAllListeners('SIGTERM')
-process.once('SIGINT', () => void shutdown(server))
-process.once('SIGTERM', () => void shutdown(server))
+try {
+  const settings = loadConfig(process.env)
+  db = await openDatabase({ dir: settings.DATA_DIR, port: settings.DB_PORT, name: 'lampwright' })
+  await prepareDatabase(db.url, { seed: settings.DEMO_MODE ? 'if-fresh' : 'never' })
+  if (!devMode) buildClientIfStale()
+  server = await startServer({ ...process.env, DATABASE_URL: db.url })
+} catch (err) {
+  stopping = true
+  reportStartError(err)
+  // A database that was already running belongs to someone else: leave it.
+  if (db?.startedHere) await db.stop().catch(() => {})
+  process.exit(1)
+}
 
-const url = `http://localhost:${server.port}`
-console.log(`\nLampwright is running at ${url}`)
-if (process.env.DEMO_MODE !== 'false') {
+const config = loadConfig(process.env)
+console.log(`\nLampwright is running at http://localhost:${server.port}`)
+if (config.DEMO_MODE) {
   console.log(`Demo accounts (password "${DEMO_PASSWORD}"):`)
   for (const a of demoAccounts) console.log(`  ${a.role.padEnd(10)} ${a.email}`)
 }

@@ -8,6 +8,7 @@ import { existsSync } from 'node:fs'
 import { join } from 'node:path'
 import type { AppDeps } from './deps'
 import { authenticate } from './middleware/authenticate'
+import { sameOrigin } from './middleware/same-origin'
 import { apiNotFound, errorHandler } from './middleware/error-handler'
 import { mountRoutes } from './route-table'
 import { allRoutes } from './routes/index'
@@ -16,9 +17,12 @@ import { tileOrigin } from './services/tiles'
 import { serveClient } from './static'
 import { logger } from './logger'
 
+const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/
+
 export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
   const app = express()
-  app.set('trust proxy', 'loopback')
+  // Off unless TRUST_PROXY names the proxies in front: otherwise X-Forwarded-For could pick req.ip.
+  app.set('trust proxy', deps.config.TRUST_PROXY)
   app.disable('x-powered-by')
   const tiles = tileOrigin(deps.config)
   app.use(
@@ -42,7 +46,9 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
     pinoHttp({
       logger,
       genReqId: (req, res) => {
-        const id = (req.headers['x-request-id'] as string) || randomUUID()
+        // A caller's id is kept for tracing only when short and plain; it ends up in logs and audit rows.
+        const given = req.headers['x-request-id']
+        const id = typeof given === 'string' && REQUEST_ID.test(given) ? given : randomUUID()
         res.setHeader('x-request-id', id)
         return id
       },
@@ -50,6 +56,7 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
     }),
   )
   app.use(cookieParser())
+  app.use('/api', sameOrigin(deps.config))
   // A 1,000-stop travel matrix is several megabytes of JSON; everything else stays small.
   app.use(`${API_PREFIX}/routing`, express.json({ limit: '24mb' }))
   app.use(express.json({ limit: '1mb' }))

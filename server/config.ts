@@ -1,6 +1,14 @@
 // The environment, parsed once. Every setting the README lists is read here and nowhere else.
 import { z } from 'zod'
 
+/** A bad setting; the message is the one line start-up prints. */
+export class SettingError extends Error {
+  override name = 'SettingError'
+}
+
+const unsetWhenEmpty = <T extends z.ZodType>(s: T) =>
+  z.preprocess((v) => (v === '' ? undefined : v), s.optional())
+
 const schema = z.object({
   NODE_ENV: z.string().default('development'),
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
@@ -8,13 +16,42 @@ const schema = z.object({
   DATABASE_URL: z.string().optional(),
   JWT_SECRET: z.string().min(16).optional(),
   SESSION_HOURS: z.coerce.number().positive().default(12),
+  /** npm start sets it to true when it runs the private database and the user did not set it. */
   DEMO_MODE: z
-    .enum(['true', 'false', '1', '0'])
-    .default('true')
+    .enum(['true', 'false', '1', '0'], 'must be true or false')
+    .default('false')
     .transform((v) => v === 'true' || v === '1'),
+  /** Where npm start keeps the private MariaDB, its secrets and the generated JWT secret. */
+  DATA_DIR: z.string().min(1).default('.data'),
+  /** The first admin of a real install (DEMO_MODE=false), created at start-up when no admin exists. */
+  ADMIN_EMAIL: unsetWhenEmpty(z.string().trim().toLowerCase().email('must be an e-mail address').max(190)),
+  ADMIN_PASSWORD: unsetWhenEmpty(z.string().min(12, 'must be at least 12 characters').max(200)),
   PUBLIC_URL: z.string().optional(),
+  /**
+   * Express 'trust proxy': unset = trust no X-Forwarded-* header (req.ip is the connecting address);
+   * else hops (`1`), `loopback`, or a comma list of addresses and CIDRs of the proxies in front.
+   */
+  TRUST_PROXY: z
+    .string()
+    .optional()
+    .refine(
+      (v) =>
+        !v?.trim() ||
+        /^(true|false|\d+)$/.test(v.trim()) ||
+        v
+          .split(',')
+          .every((p) => /^(loopback|linklocal|uniquelocal|[0-9A-Fa-f:.]+(\/\d{1,3})?)$/.test(p.trim())),
+      'Use a number of hops, loopback, linklocal, uniquelocal, or addresses/CIDRs separated by commas.',
+    )
+    .transform((v): boolean | number | string => {
+      const s = v?.trim() ?? ''
+      if (s === '' || s === 'false') return false
+      if (s === 'true') return true
+      return /^\d+$/.test(s) ? Number(s) : s
+    }),
   SMTP_URL: z.string().optional(),
-  SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** 0 = a free port, so two instances run side by side. */
+  SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   MAIL_FROM: z.string().default('Lampwright <no-reply@lampwright.example>'),
   TILE_URL: z.string().optional(),
   TILE_ATTRIBUTION: z.string().default('Lampwright demo basemap'),
@@ -24,12 +61,27 @@ const schema = z.object({
   UPLOAD_DIR: z.string().default('uploads'),
   UPLOAD_MAX_MB: z.coerce.number().positive().default(12),
   LOG_LEVEL: z.string().default('info'),
+  /** Threads for forecasts, tour search and run planning; unset = one fewer than the cores, at least 1. */
+  WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
 })
 
 export type Config = z.infer<typeof schema>
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  return schema.parse(env)
+  const r = schema.safeParse(env)
+  if (r.success) return r.data
+  const issue = r.error.issues[0]
+  throw new SettingError(
+    `setting ${issue.path.join('.')} is not valid (${issue.message}): fix it and start again`,
+  )
 }
 
-export const config: Config = loadConfig()
+// Parsed at import for modules outside a request; a bad setting is reported by loadConfig at
+// start-up (with its one-line message), not by a stack trace here.
+export const config: Config = (() => {
+  try {
+    return loadConfig()
+  } catch {
+    return loadConfig({})
+  }
+})()

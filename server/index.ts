@@ -1,5 +1,5 @@
 // Reads config, builds the app and listens: the only file that opens the server's ports.
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { randomBytes } from 'node:crypto'
 import { join, resolve } from 'node:path'
 import type { Server } from 'node:http'
@@ -11,53 +11,88 @@ import { createMailer, createTransport } from './mail/mailer'
 import { startFakeSmtp } from './mail/fake-smtp'
 import { logger } from './logger'
 import { startJobs } from './jobs/schedule'
+import { closeWorkers } from './workers/pool'
+import { activeDemoAccounts, ensureFirstAdmin, firstAdminLine } from './services/first-admin'
+import { portError, reportStartError, StartError } from './start-errors'
 
-/** JWT_SECRET, else a secret generated once into .data/ (git-ignored, never committed). */
-export function jwtSecret(config: Config, dataDir = '.data'): string {
+/** JWT_SECRET, else a secret generated once into DATA_DIR (git-ignored, never committed). */
+export function jwtSecret(config: Config, dataDir = config.DATA_DIR): string {
   if (config.JWT_SECRET) return config.JWT_SECRET
   const file = join(dataDir, 'jwt-secret')
   if (!existsSync(file)) {
-    mkdirSync(dataDir, { recursive: true })
+    mkdirSync(dataDir, { recursive: true, mode: 0o700 })
     writeFileSync(file, randomBytes(48).toString('base64url'), { mode: 0o600 })
   }
+  chmodSync(file, 0o600)
   return readFileSync(file, 'utf8').trim()
 }
 
+function listen(app: ReturnType<typeof createApp>, port: number): Promise<Server> {
+  return new Promise((ok, fail) => {
+    const s = app.listen(port, (err?: Error) => (err ? fail(portError(err, port, 'PORT')) : ok(s)))
+  })
+}
+
+/** Opens everything in order; on a failure closes what was opened, then rethrows. */
 export async function startServer(env: NodeJS.ProcessEnv = process.env) {
   const config = loadConfig(env)
   if (!config.DATABASE_URL)
-    throw new Error('DATABASE_URL is not set (npm start sets it for the private database).')
+    throw new StartError('DATABASE_URL is not set: npm start sets it for the private database')
   const db = createDb(config.DATABASE_URL)
-  const fake = config.SMTP_URL ? null : await startFakeSmtp(db, config.SMTP_FAKE_PORT)
-  const mailer = createMailer(db, createTransport(config.SMTP_URL, fake?.port ?? 0), config.MAIL_FROM)
-  const uploadDir = resolve(config.UPLOAD_DIR)
-  mkdirSync(uploadDir, { recursive: true })
-  const app = createApp({ db, config, jwtSecret: jwtSecret(config), mailer, uploadDir })
-  const server: Server = await new Promise((r) => {
-    const s = app.listen(config.PORT, () => r(s))
-  })
-  const addr = server.address()
-  const port = typeof addr === 'object' && addr ? addr.port : config.PORT
-  logger.info({ port }, 'Lampwright is listening')
-  const stopJobs = startJobs(db)
-  return {
-    port,
-    async close() {
-      stopJobs()
-      await new Promise((r) => server.close(r))
-      server.closeAllConnections()
-      await fake?.close()
-      await db.destroy()
-    },
+  const undo: (() => Promise<unknown>)[] = [() => db.destroy()]
+  try {
+    const fake = config.SMTP_URL
+      ? null
+      : await startFakeSmtp(db, config.SMTP_FAKE_PORT).catch((err) => {
+          throw portError(err, config.SMTP_FAKE_PORT, 'SMTP_FAKE_PORT (or leave it unset)')
+        })
+    if (fake) undo.push(() => fake.close())
+    const mailer = createMailer(db, createTransport(config.SMTP_URL, fake?.port ?? 0), config.MAIL_FROM)
+    const line = firstAdminLine(await ensureFirstAdmin(db, config, mailer))
+    if (line) console.log(line)
+    if (!config.DEMO_MODE) {
+      const demo = await activeDemoAccounts(db)
+      if (demo.length)
+        console.log(
+          `Warning: the demo accounts (${demo.join(', ')}) are active and their password is published: deactivate them under Users.`,
+        )
+    }
+    const uploadDir = resolve(config.UPLOAD_DIR)
+    mkdirSync(uploadDir, { recursive: true })
+    const app = createApp({ db, config, jwtSecret: jwtSecret(config), mailer, uploadDir })
+    const server = await listen(app, config.PORT)
+    const addr = server.address()
+    const port = typeof addr === 'object' && addr ? addr.port : config.PORT
+    logger.info({ port }, 'Lampwright is listening')
+    const stopJobs = startJobs(db)
+    return {
+      port,
+      async close() {
+        stopJobs()
+        await new Promise((r) => server.close(r))
+        server.closeAllConnections()
+        await fake?.close()
+        await closeWorkers()
+        await db.destroy()
+      },
+    }
+  } catch (err) {
+    for (const u of undo.reverse()) await u().catch(() => {})
+    throw err
   }
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
-  const running = await startServer()
-  const stop = async () => {
-    await running.close()
-    process.exit(0)
+  try {
+    const running = await startServer()
+    const stop = async () => {
+      await running.close()
+      process.exit(0)
+    }
+    process.once('SIGINT', stop)
+    process.once('SIGTERM', stop)
+  } catch (err) {
+    reportStartError(err)
+    process.exit(1)
   }
-  process.once('SIGINT', stop)
-  process.once('SIGTERM', stop)
 }

@@ -35,6 +35,9 @@ export interface RouteDef {
   responseType?: string
   status?: number
   before?: (deps: AppDeps) => RequestHandler[]
+  /** 'handler': `body` documents the route but the handler validates it (a large body, checked on a
+   * worker thread); the handler then gets the raw body. */
+  bodyCheck?: 'handler'
   handler: (ctx: Ctx) => Promise<unknown> | unknown
 }
 
@@ -61,7 +64,7 @@ export function mountRoutes(router: Router, defs: RouteDef[], deps: AppDeps): vo
     const chain: RequestHandler[] = []
     if (def.access !== 'public') chain.push(requireRoles(def.access))
     if (def.before) chain.push(...def.before(deps))
-    chain.push(validate(def))
+    chain.push(validate(def.bodyCheck === 'handler' ? { query: def.query, params: def.params } : def))
     chain.push(async (req, res) => {
       const v = res.locals.valid as { body: unknown; query: unknown; params: unknown }
       // The table's status unless the handler sets its own (503 from the health check, 200 for a replay).

@@ -1,17 +1,10 @@
-// Turns a string's recorded condition into the engine's input and our five state marks.
+// Turns a string's recorded condition into the engine's input and our five state marks (the words
+// are in schemas/string-states.ts; what a visit does to the condition is in visit-rules.ts).
 import type { AssessRequest, ForecastRequest } from './schemas/engine'
+import type { StringStatus } from './schemas/string-states'
 import { assess } from './engine/assess'
 
-export const statuses = ['lit', 'watch', 'replace', 'dark', 'safe'] as const
-export type StringStatus = (typeof statuses)[number]
-
-export const statusLabel: Record<StringStatus, string> = {
-  lit: 'Lit',
-  watch: 'Watch',
-  replace: 'Replace now',
-  dark: 'Dark',
-  safe: 'Made safe',
-}
+export { statuses, statusLabel, type StringStatus } from './schemas/string-states'
 
 export interface TypeSpec {
   wiring: 'series' | 'parallel'
@@ -26,6 +19,16 @@ export interface Condition {
   fuseFailed: boolean
   dark: boolean
   isolated: boolean
+}
+
+/** A string's condition as recorded: a database row (booleans as 0/1) or the API's string page. */
+export function conditionOf(s: {
+  lampsOut: number
+  fuseFailed: boolean | number
+  dark: boolean | number
+  isolated: boolean | number
+}): Condition {
+  return { lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated }
 }
 
 /** Lamps out are spread over the shunted classes in order; a failed fuse lamp is the first unshunted lamp. */
@@ -71,29 +74,6 @@ export function stringStatus(type: TypeSpec, c: Condition) {
           ? 'watch'
           : 'lit'
   return { status, replaceNow: !c.isolated && (c.dark || result.replaceNow), result }
-}
-
-export interface VisitCounts {
-  failedFound: number
-  replaced: number
-  fuseReplaced?: boolean
-  darkOnArrival?: boolean
-  leaveMadeSafe?: boolean
-}
-
-/**
- * What a visit does to a string's recorded condition (the server records it, the phone previews it):
- * found lamps add to those out, replaced ones come off, a replaced fuse lamp clears the fuse, any
- * relamp lights a dark string, "leave made safe" isolates it.
- */
-export function applyVisit(before: Condition, v: VisitCounts): Condition {
-  const fixed = v.replaced > 0 || !!v.fuseReplaced
-  return {
-    lampsOut: Math.max(0, before.lampsOut + v.failedFound - v.replaced),
-    fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
-    dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
-    isolated: !!v.leaveMadeSafe,
-  }
 }
 
 export interface LifeSpec extends TypeSpec {

@@ -1,7 +1,12 @@
 // npm run bench: every benchmark in turn; each prints its own table against its target.
 import { spawnSync } from 'node:child_process'
 
-const benches = ['scripts/bench/forecast.ts', 'scripts/bench/routing.ts', 'scripts/bench/bbox.ts']
+const benches = [
+  'scripts/bench/forecast.ts',
+  'scripts/bench/routing.ts',
+  'scripts/bench/bbox.ts',
+  'scripts/bench/event-loop.ts',
+]
 let failed = false
 for (const b of benches) {
   console.log(`\n## ${b}\n`)

@@ -1,5 +1,6 @@
 // The invented demo scenario: the town of Wrenfold and Larkspur Hall Gardens, placed relative to
-// `now` so every screen has fresh data whenever the demo starts. Safe to re-run: it empties first.
+// `now` so every screen has fresh data whenever the demo starts. It refuses a database with users
+// unless told to wipe it.
 import type { Db } from '../../server/db'
 import { stringStatus, type TypeSpec } from '../../shared/string-status'
 import { rng } from './geo'
@@ -9,38 +10,28 @@ import { seedCertificates, seedVisits } from './history'
 import { seedReports } from './reports'
 import { typeDefs } from '../../shared/lamp-catalogue'
 import { refreshQueue } from '../../server/jobs/refresh-queue'
-import { listQueue } from '../../server/services/queue'
+import { listQueue } from '../../server/services/queue/list'
 import { proposePlan, publishRuns } from '../../server/services/runs'
 import { loadConfig } from '../../server/config'
+import { DEMO_SETTINGS } from '../../server/services/demo-settings'
+import { demoAccounts, DEMO_PASSWORD } from './accounts'
+import { demoBasemap } from './basemap'
 
-const tables = [
-  'run_stops',
-  'runs',
-  'queue_items',
-  'photos',
-  'visits',
-  'isolation_steps',
-  'isolations',
-  'reports',
-  'certificates',
-  'strings',
-  'structures',
-  'lamp_classes',
-  'string_types',
-  'circuits',
-  'supply_points',
-  'sites',
-  'clients',
-  'users',
-  'crews',
-  'platforms',
-  'audit_log',
-  'email_outbox',
-  'caught_mail',
-  'settings',
-]
+/** What the server shows in demo mode only: the sign-in page's accounts and the drawn streets. */
+async function saveDemoSettings(db: Db) {
+  const accounts = demoAccounts.map(({ email, role, name }) => ({ email, role, name }))
+  await db('settings').insert([
+    { key: DEMO_SETTINGS.accounts, value: JSON.stringify({ accounts, password: DEMO_PASSWORD }) },
+    { key: DEMO_SETTINGS.basemap, value: JSON.stringify(demoBasemap()) },
+  ])
+}
 
 export async function emptyAll(db: Db) {
+  // Every table of the schema but the migrations' own, so a table added later is emptied too.
+  const [rows] = await db.raw(
+    "SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name NOT LIKE 'knex\\_migrations%'",
+  )
+  const tables = (rows as { t: string }[]).map((r) => r.t)
   await db.raw('SET FOREIGN_KEY_CHECKS = 0')
   try {
     for (const t of tables) await db.raw('TRUNCATE TABLE ??', [t])
@@ -49,7 +40,15 @@ export async function emptyAll(db: Db) {
   }
 }
 
-export async function seedDemo(db: Db, now: Date) {
+/**
+ * Loads the demo into a database with no users. `wipe` (only the test database, benchmarks and the
+ * confirmed demo reset) empties every table first, whatever it holds.
+ */
+export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {}) {
+  if (!opts.wipe && (await db('users').first('id')))
+    throw new Error(
+      'This database holds users: the demo loads only into a fresh one, so nothing was changed.',
+    )
   const r = rng(20261201)
   await emptyAll(db)
   const { crewIds, users } = await seedPeople(db)
@@ -127,6 +126,7 @@ export async function seedDemo(db: Db, now: Date) {
   await refreshQueue(db, now)
   await backdateQueue(db, r, now)
   await publishTonight(db, now, users.find((u) => u.role === 'supervisor')!.id)
+  await saveDemoSettings(db)
   return { strings: rows.length, visits, certificates, reports }
 }
 

@@ -3,6 +3,7 @@
 import { SMTPServer } from 'smtp-server'
 import { simpleParser } from 'mailparser'
 import type { Db } from '../db'
+import { logger } from '../logger'
 
 export function startFakeSmtp(db: Db, port: number): Promise<{ port: number; close(): Promise<void> }> {
   const server = new SMTPServer({
@@ -28,9 +29,13 @@ export function startFakeSmtp(db: Db, port: number): Promise<{ port: number; clo
         .catch((err: Error) => callback(err))
     },
   })
+  // Port 0 (the default) takes a free port, so two instances run side by side.
   return new Promise((resolve, reject) => {
     server.once('error', reject)
     server.listen(port, '127.0.0.1', () => {
+      server.off('error', reject)
+      // A client's broken connection is reported here; without a listener it would end the process.
+      server.on('error', (err) => logger.warn({ err }, 'local mail fake: connection error'))
       const addr = server.server.address()
       resolve({
         port: typeof addr === 'object' && addr ? addr.port : port,

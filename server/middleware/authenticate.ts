@@ -10,20 +10,27 @@ function tokenFrom(header: string | undefined, cookie: string | undefined): stri
   return cookie ?? null
 }
 
-/** Attaches req.user when a valid session token arrives by cookie or Bearer header. */
+/**
+ * Attaches req.user when a valid session token arrives by cookie or Bearer header and still carries
+ * the user's current token version (sign-out, a new password, a role change or deactivation raise
+ * it). Any other token is ignored, so protected routes answer 401 unauthenticated.
+ */
 export function authenticate(deps: AppDeps): RequestHandler {
   return async (req, _res, next) => {
     const token = tokenFrom(req.headers.authorization, req.cookies?.[SESSION_COOKIE])
     if (!token) return next()
-    let sub: number
+    let payload: jwt.JwtPayload
     try {
-      const payload = jwt.verify(token, deps.jwtSecret, { algorithms: ['HS256'] }) as jwt.JwtPayload
-      sub = Number(payload.sub)
+      payload = jwt.verify(token, deps.jwtSecret, { algorithms: ['HS256'] }) as jwt.JwtPayload
     } catch {
       return next()
     }
-    const user = await findActiveUser(deps.db, sub)
-    if (user) req.user = user
+    const id = Number(payload.sub)
+    if (!Number.isSafeInteger(id)) return next()
+    const user = await findActiveUser(deps.db, id)
+    if (user && payload.ver === user.tokenVersion) {
+      req.user = { id: user.id, name: user.name, email: user.email, role: user.role, crewId: user.crewId }
+    }
     next()
   }
 }

@@ -1,52 +1,57 @@
-import type { Response } from 'express'
+import type { Request, Response } from 'express'
 import jwt from 'jsonwebtoken'
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
-import { acceptInviteBody, meResponse, sessionResponse, signInBody } from '../../shared/schemas/auth'
+import {
+  acceptInviteBody,
+  changePasswordBody,
+  meResponse,
+  sessionResponse,
+  signInBody,
+} from '../../shared/schemas/auth'
 import { roles } from '../../shared/roles'
 import { defineRoute, type RouteDef } from '../route-table'
 import type { AppDeps } from '../deps'
-import { HttpError } from '../errors'
+import { HttpError, badRequest } from '../errors'
 import { SESSION_COOKIE } from '../middleware/authenticate'
-import { acceptInvite, verifyCredentials } from '../services/users'
-import { audit } from '../services/audit'
+import {
+  acceptInvite,
+  checkPassword,
+  recordSignIn,
+  revokeSessions,
+  setPassword,
+  verifyCredentials,
+  type SessionUser,
+} from '../services/users'
+import { audited } from '../services/audit'
+import { signInSucceeded, startSignInAttempt } from '../services/rate-limits'
 
-type SessionUser = {
-  id: number
-  name: string
-  email: string
-  role: (typeof roles)[number]
-  crewId: number | null
-}
+// Secure whenever the request arrived over https: directly, or through a proxy trusted by TRUST_PROXY.
+const cookieOptions = (req: Request) => ({
+  httpOnly: true,
+  sameSite: 'lax' as const,
+  secure: req.secure,
+  path: '/',
+})
 
-function startSession(deps: AppDeps, res: Response, user: SessionUser) {
+/** A token carrying the user's current token version, in the body and as the session cookie. */
+function startSession(deps: AppDeps, req: Request, res: Response, user: SessionUser) {
   const hours = deps.config.SESSION_HOURS
-  const token = jwt.sign({ role: user.role }, deps.jwtSecret, {
+  const token = jwt.sign({ role: user.role, ver: user.tokenVersion }, deps.jwtSecret, {
     subject: String(user.id),
     expiresIn: `${hours}h`,
     algorithm: 'HS256',
   })
-  res.cookie(SESSION_COOKIE, token, {
-    httpOnly: true,
-    sameSite: 'lax',
-    secure: deps.config.NODE_ENV === 'production' && deps.config.PUBLIC_URL?.startsWith('https:'),
-    maxAge: hours * 3_600_000,
-    path: '/',
-  })
-  return { user, token }
+  res.cookie(SESSION_COOKIE, token, { ...cookieOptions(req), maxAge: hours * 3_600_000 })
+  const { id, name, email, role, crewId } = user
+  return { user: { id, name, email, role, crewId }, token }
 }
 
-// Ten failed attempts per address and e-mail in 15 minutes, then a pause (OWASP authentication guidance).
-const signInLimiter = () =>
-  rateLimit({
-    windowMs: 15 * 60_000,
-    limit: 10,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
-    handler: (_req, _res, next) =>
-      next(new HttpError(429, 'rate_limited', 'Too many failed sign-ins. Wait 15 minutes and try again.')),
-  })
+const entry = (req: Request, userId: number, action: string) => ({
+  userId,
+  action,
+  entity: 'user',
+  entityId: userId,
+  requestId: String(req.id),
+})
 
 export const authRoutes: RouteDef[] = [
   defineRoute({
@@ -57,18 +62,17 @@ export const authRoutes: RouteDef[] = [
     summary: 'Sign in with e-mail and password',
     body: signInBody,
     response: sessionResponse,
-    before: () => [signInLimiter()],
     handler: async ({ body, res, deps, req }) => {
+      await startSignInAttempt(deps.db, body.email, req.ip, res)
       const user = await verifyCredentials(deps.db, body.email, body.password)
       if (!user) throw new HttpError(401, 'invalid_credentials', 'E-mail or password is not right.')
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'sign_in',
-        entity: 'user',
-        entityId: user.id,
-        requestId: String(req.id),
-      })
-      return startSession(deps, res, user)
+      await signInSucceeded(deps.db, body.email, req.ip)
+      await audited(
+        deps.db,
+        (trx) => recordSignIn(trx, user.id),
+        () => entry(req, user.id, 'sign_in'),
+      )
+      return startSession(deps, req, res, user)
     },
   }),
   defineRoute({
@@ -85,9 +89,40 @@ export const authRoutes: RouteDef[] = [
     path: '/auth/sign-out',
     access: 'public',
     tag: 'auth',
-    summary: 'End the session',
-    handler: ({ res }) => {
-      res.clearCookie(SESSION_COOKIE, { path: '/' })
+    summary: 'End the session: every token of the signed-in user stops working',
+    handler: async ({ req, res, deps }) => {
+      const user = req.user
+      if (user) {
+        await audited(
+          deps.db,
+          (trx) => revokeSessions(trx, user.id),
+          () => entry(req, user.id, 'sign_out'),
+        )
+      }
+      res.clearCookie(SESSION_COOKIE, cookieOptions(req))
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/password',
+    access: roles,
+    tag: 'auth',
+    summary: 'Change the password; other sessions end and this device gets a fresh one',
+    body: changePasswordBody,
+    response: sessionResponse,
+    handler: async ({ body, user, req, res, deps }) => {
+      // Guessing the current password from a stolen session meets the sign-in limit.
+      await startSignInAttempt(deps.db, user.email, req.ip, res)
+      await checkPassword(deps.db, user.id, body.currentPassword)
+      await signInSucceeded(deps.db, user.email, req.ip)
+      if (body.newPassword === body.currentPassword)
+        throw badRequest('password_unchanged', 'Choose a new password different from the current one.')
+      const session = await audited(
+        deps.db,
+        (trx) => setPassword(trx, user.id, body.newPassword),
+        () => entry(req, user.id, 'password_change'),
+      )
+      return startSession(deps, req, res, session)
     },
   }),
   defineRoute({
@@ -98,7 +133,13 @@ export const authRoutes: RouteDef[] = [
     summary: 'Set a password from an invitation',
     body: acceptInviteBody,
     response: sessionResponse,
-    handler: async ({ body, res, deps }) =>
-      startSession(deps, res, await acceptInvite(deps.db, body.token, body.password)),
+    handler: async ({ body, req, res, deps }) => {
+      const user = await audited(
+        deps.db,
+        (trx) => acceptInvite(trx, body.token, body.password),
+        (u) => entry(req, u.id, 'accept_invite'),
+      )
+      return startSession(deps, req, res, user)
+    },
   }),
 ]

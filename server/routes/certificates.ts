@@ -6,7 +6,6 @@ import {
 } from '../../shared/schemas/certificates'
 import { defineRoute, type RouteDef } from '../route-table'
 import { listCertificates, recordCertificate } from '../services/certificates'
-import { refreshCertificateItems } from '../jobs/refresh-queue'
 import { audited } from '../services/audit'
 
 export const certificateRoutes: RouteDef[] = [
@@ -29,8 +28,8 @@ export const certificateRoutes: RouteDef[] = [
     body: certificateBody,
     response: certificateCreated,
     status: 201,
-    handler: async ({ deps, body, user, req }) => {
-      const created = await audited(
+    handler: ({ deps, body, user, req }) =>
+      audited(
         deps.db,
         (trx) => recordCertificate(trx, user.id, body),
         (c) => ({
@@ -41,9 +40,6 @@ export const certificateRoutes: RouteDef[] = [
           details: { kind: body.kind, result: c.result },
           requestId: String(req.id),
         }),
-      )
-      await refreshCertificateItems(deps.db, new Date())
-      return created
-    },
+      ),
   }),
 ]

@@ -11,8 +11,10 @@ import {
   forecastRequestSchema,
   forecastResponseSchema,
 } from '../../shared/schemas/engine'
-import { assess, assessCircuit, coldResistance, estimateShorted, forecast } from '../../shared/engine/index'
+import { assess, assessCircuit, coldResistance, estimateShorted } from '../../shared/engine/index'
+import { MAX_FORECAST_COST } from '../../shared/engine/defaults'
 import { defineRoute, type RouteDef } from '../route-table'
+import { forecastInPool } from '../workers/heavy-jobs'
 
 // The string engine over HTTP: the same pure functions the client runs offline.
 export const engineRoutes: RouteDef[] = [
@@ -31,10 +33,10 @@ export const engineRoutes: RouteDef[] = [
     path: '/engine/forecast',
     access: roles,
     tag: 'engine',
-    summary: 'Monte Carlo forecast of the failure cascade',
+    summary: `Monte Carlo forecast of the failure cascade; at most ${MAX_FORECAST_COST} trials × lamps in circuit (413 beyond)`,
     body: forecastRequestSchema,
     response: forecastResponseSchema,
-    handler: ({ body }) => forecast(body),
+    handler: ({ body, user, res }) => forecastInPool(body, { userId: user.id, res }),
   }),
   defineRoute({
     method: 'post',

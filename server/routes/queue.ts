@@ -9,7 +9,8 @@ import {
   snoozeBody,
 } from '../../shared/schemas/queue'
 import { defineRoute, type RouteDef } from '../route-table'
-import { closeItem, listQueue, mergeItems, snoozeItem } from '../services/queue'
+import { closeItem, mergeItems, snoozeItem } from '../services/queue/actions'
+import { listQueue } from '../services/queue/list'
 import { refreshQueue } from '../jobs/refresh-queue'
 import { audited } from '../services/audit'
 
@@ -88,13 +89,13 @@ export const queueRoutes: RouteDef[] = [
     path: '/queue/:id/close',
     access: planners,
     tag: 'queue',
-    summary: 'Close an item without a visit, with a reason',
+    summary: "Close an item without a visit, with a reason; a public report's status moves on with it",
     params: idParam,
     body: closeBody,
     handler: async ({ deps, params, body, user, req }) => {
       await audited(
         deps.db,
-        (trx) => closeItem(trx, params.id, body.reason),
+        (trx) => closeItem(trx, params.id, body.reason, body.reportState),
         () => ({
           userId: user.id,
           action: 'close',

@@ -1,26 +1,9 @@
-import { rateLimit } from 'express-rate-limit'
 import { refParam, reportBody, reportStatus, streetList } from '../../shared/schemas/reports'
 import { defineRoute, type RouteDef } from '../route-table'
-import { HttpError } from '../errors'
 import { createReport, listStreets, reportStatus as loadStatus } from '../services/reports'
+import { LIMITS, limitByAddress } from '../services/rate-limits'
 
-// The public form needs no account, so it is limited per address: 10 reports an hour.
-const reportLimiter = () =>
-  rateLimit({
-    windowMs: 60 * 60_000,
-    limit: 10,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    handler: (_req, _res, next) =>
-      next(
-        new HttpError(
-          429,
-          'rate_limited',
-          'Thank you — we have several reports from you already. Try again later.',
-        ),
-      ),
-  })
-
+// The public form and the status look-up need no account, so both are limited per address.
 export const reportRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
@@ -31,7 +14,7 @@ export const reportRoutes: RouteDef[] = [
     body: reportBody,
     response: reportStatus,
     status: 201,
-    before: () => [reportLimiter()],
+    before: (deps) => [limitByAddress(deps.db, LIMITS.report)],
     handler: ({ deps, body, req }) => createReport(deps.db, body, req.ip ?? ''),
   }),
   defineRoute({
@@ -42,6 +25,7 @@ export const reportRoutes: RouteDef[] = [
     summary: 'Status of a public report by its reference',
     params: refParam,
     response: reportStatus,
+    before: (deps) => [limitByAddress(deps.db, LIMITS.statusLookup)],
     handler: ({ deps, params }) => loadStatus(deps.db, params.ref),
   }),
   defineRoute({

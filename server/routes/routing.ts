@@ -1,13 +1,14 @@
 import { planners } from '../../shared/roles'
 import { tourRequestSchema, tourResultSchema } from '../../shared/schemas/routing'
-import { solveTour } from '../../shared/routing/index'
 import {
   MAX_STOPS_WITH_COORDINATES,
   MAX_STOPS_WITH_MATRIX,
+  MAX_TOUR_COST,
   tourRequestTooLarge,
 } from '../../shared/routing/limits'
 import { defineRoute, type RouteDef } from '../route-table'
 import { HttpError } from '../errors'
+import { solveTourInPool } from '../workers/heavy-jobs'
 
 export const routingRoutes: RouteDef[] = [
   defineRoute({
@@ -15,8 +16,9 @@ export const routingRoutes: RouteDef[] = [
     path: '/routing/solve',
     access: planners,
     tag: 'routing',
-    summary: 'Shortest closed tour through the stops',
+    summary: `Shortest closed tour through the stops; at most ${MAX_TOUR_COST} stops × time-limit ms (413 beyond)`,
     body: tourRequestSchema,
+    bodyCheck: 'handler',
     response: tourResultSchema,
     before: () => [
       (req, _res, next) => {
@@ -32,6 +34,7 @@ export const routingRoutes: RouteDef[] = [
         next()
       },
     ],
-    handler: ({ body }) => solveTour(body),
+    // The raw body: a pool thread validates it against tourRequestSchema.
+    handler: ({ req, user, res }) => solveTourInPool(req.body, { userId: user.id, res }),
   }),
 ]

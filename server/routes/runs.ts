@@ -12,7 +12,6 @@ import { defineRoute, type RouteDef } from '../route-table'
 import { loadCrews } from '../services/run-items'
 import { proposePlan, publishRuns } from '../services/runs'
 import { listRuns } from '../services/run-list'
-import { audit } from '../services/audit'
 import { badRequest } from '../errors'
 
 const today = () => new Date().toISOString().slice(0, 10)
@@ -35,7 +34,7 @@ export const runRoutes: RouteDef[] = [
     summary: 'Propose runs: assign queue items to crews and order them (not saved)',
     body: planBody,
     response: planResult,
-    handler: ({ deps, body }) => proposePlan(deps.db, body, deps.config),
+    handler: ({ deps, body, user, res }) => proposePlan(deps.db, body, deps.config, { userId: user.id, res }),
   }),
   defineRoute({
     method: 'post',
@@ -45,16 +44,11 @@ export const runRoutes: RouteDef[] = [
     summary: 'Publish runs in the given order and e-mail each crew',
     body: publishBody,
     response: planResult,
-    handler: async ({ deps, body, user }) => {
-      const result = await publishRuns(deps.db, deps.mailer, deps.config, user.id, body)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'publish',
-        entity: 'run',
-        details: { date: body.date, crews: body.runs.map((r) => r.crewId) },
-      })
-      return result
-    },
+    handler: ({ deps, body, user, req, res }) =>
+      publishRuns(deps.db, deps.mailer, deps.config, user.id, body, {
+        requestId: String(req.id),
+        owner: { userId: user.id, res },
+      }),
   }),
   defineRoute({
     method: 'get',

@@ -1,13 +1,23 @@
-import { roles } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { clientConfig, healthResponse, mailList, mailMessage } from '../../shared/schemas/system'
 import { defineRoute, type RouteDef } from '../route-table'
 import { HttpError } from '../errors'
-import { demoAccounts, DEMO_PASSWORD } from '../../seeds/demo/accounts'
+import type { Config } from '../config'
 import { getMail, listMail } from '../services/mail'
 import { tileSettings } from '../services/tiles'
-import { demoBasemap } from '../services/basemap'
+import { demoAccountsSetting, demoBasemapSetting } from '../services/demo-settings'
 import { basemap } from '../../shared/schemas/system'
+
+// The outbox shows every message the demo sent, invitation links included: only for the one role that
+// could create those accounts anyway, only in demo mode, and never when mail goes to a real server.
+function requireOutbox(config: Config): void {
+  if (!config.DEMO_MODE || config.SMTP_URL)
+    throw new HttpError(
+      404,
+      'not_found',
+      'The mail outbox exists only in demo mode with the local mail fake.',
+    )
+}
 
 export const systemRoutes: RouteDef[] = [
   defineRoute({
@@ -34,13 +44,14 @@ export const systemRoutes: RouteDef[] = [
     tag: 'system',
     summary: 'Settings the client needs before sign-in',
     response: clientConfig,
-    handler: ({ deps }) => {
+    handler: async ({ deps }) => {
       const demo = deps.config.DEMO_MODE
+      const accounts = demo ? await demoAccountsSetting(deps.db) : null
       return {
         appName: 'Lampwright',
         demoMode: demo,
-        demoAccounts: demo ? demoAccounts.map(({ email, role, name }) => ({ email, role, name })) : [],
-        demoPassword: demo ? DEMO_PASSWORD : null,
+        demoAccounts: accounts?.accounts ?? [],
+        demoPassword: accounts?.password ?? null,
         tiles: tileSettings(deps.config),
         mailOutbox: demo && !deps.config.SMTP_URL,
       }
@@ -51,37 +62,37 @@ export const systemRoutes: RouteDef[] = [
     path: '/basemap',
     access: 'public',
     tag: 'system',
-    summary: "The demo town's streets as GeoJSON, drawn when no TILE_URL is set",
+    summary: "The demo town's streets as GeoJSON, drawn when no TILE_URL is set (demo mode only)",
     response: basemap,
-    handler: ({ res }) => {
+    handler: async ({ deps, res }) => {
+      const streets = deps.config.DEMO_MODE ? await demoBasemapSetting(deps.db) : null
+      if (!streets) throw new HttpError(404, 'not_found', 'Drawn streets exist only for the demo town.')
       res.setHeader('Cache-Control', 'public, max-age=3600')
-      return demoBasemap()
+      return streets
     },
   }),
   defineRoute({
     method: 'get',
     path: '/mail',
-    access: roles,
+    access: ['admin'],
     tag: 'system',
     summary: 'Messages caught by the local mail fake (demo only)',
     response: mailList,
     handler: async ({ deps }) => {
-      if (!deps.config.DEMO_MODE)
-        throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
+      requireOutbox(deps.config)
       return { items: await listMail(deps.db) }
     },
   }),
   defineRoute({
     method: 'get',
     path: '/mail/:id',
-    access: roles,
+    access: ['admin'],
     tag: 'system',
     summary: 'One caught message (demo only)',
     params: idParam,
     response: mailMessage,
     handler: async ({ deps, params }) => {
-      if (!deps.config.DEMO_MODE)
-        throw new HttpError(404, 'not_found', 'The mail outbox exists only in demo mode.')
+      requireOutbox(deps.config)
       return getMail(deps.db, params.id)
     },
   }),

@@ -2,7 +2,7 @@ import { idParam } from '../../shared/schemas/common'
 import { inviteBody, userList, userPatch, userResponse } from '../../shared/schemas/auth'
 import { defineRoute, type RouteDef } from '../route-table'
 import { inviteUser, listUsers, updateUser } from '../services/users'
-import { audit } from '../services/audit'
+import { audited } from '../services/audit'
 import { inviteMail } from '../mail/templates'
 
 export const userRoutes: RouteDef[] = [
@@ -25,16 +25,20 @@ export const userRoutes: RouteDef[] = [
     response: userResponse,
     status: 201,
     handler: async ({ body, deps, user, req }) => {
-      const { user: invited, token } = await inviteUser(deps.db, body)
+      const { user: invited, token } = await audited(
+        deps.db,
+        (trx) => inviteUser(trx, body),
+        (r) => ({
+          userId: user.id,
+          action: 'invite',
+          entity: 'user',
+          entityId: r.user.id,
+          details: { role: body.role },
+          requestId: String(req.id),
+        }),
+      )
+      // Sent after the commit: no invitation mail for a user that was never saved.
       await deps.mailer.send(inviteMail(deps.config, invited, token, user.name))
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'invite',
-        entity: 'user',
-        entityId: invited.id,
-        details: { role: body.role },
-        requestId: String(req.id),
-      })
       return { user: invited }
     },
   }),
@@ -48,15 +52,18 @@ export const userRoutes: RouteDef[] = [
     body: userPatch,
     response: userResponse,
     handler: async ({ params, body, deps, user, req }) => {
-      const updated = await updateUser(deps.db, user.id, params.id, body)
-      await audit(deps.db, {
-        userId: user.id,
-        action: 'update',
-        entity: 'user',
-        entityId: params.id,
-        details: body,
-        requestId: String(req.id),
-      })
+      const updated = await audited(
+        deps.db,
+        (trx) => updateUser(trx, user.id, params.id, body),
+        () => ({
+          userId: user.id,
+          action: 'update',
+          entity: 'user',
+          entityId: params.id,
+          details: body,
+          requestId: String(req.id),
+        }),
+      )
       return { user: updated }
     },
   }),

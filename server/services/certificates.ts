@@ -3,6 +3,7 @@ import { badRequest } from '../errors'
 import { judgeReadings } from '../../shared/test-limits'
 import type { z } from 'zod'
 import type { certificateBody } from '../../shared/schemas/certificates'
+import { syncCertificateItems } from './queue/certificates'
 
 const DAY = 86_400_000
 
@@ -54,6 +55,7 @@ export async function listCertificates(
   }))
 }
 
+/** Records a test or inspection and brings the queue's certificate items in step; run it in a transaction. */
 export async function recordCertificate(db: Db, userId: number, body: z.infer<typeof certificateBody>) {
   const table = { platform: 'platforms', structure: 'structures', string: 'strings', circuit: 'circuits' }[
     body.subjectType
@@ -79,5 +81,6 @@ export async function recordCertificate(db: Db, userId: number, body: z.infer<ty
     notes: [body.notes, ...(judged?.reasons ?? [])].filter(Boolean).join(' ') || null,
     createdBy: userId,
   })
+  await syncCertificateItems(db, new Date())
   return { id, result, reasons: judged?.reasons ?? [] }
 }

@@ -3,10 +3,9 @@
 import type { Db } from '../db'
 import { notFound } from '../errors'
 import { assessCircuit, stringLoad } from '../../shared/engine/index'
-import { engineInput } from '../../shared/string-status'
+import { conditionOf, engineInput } from '../../shared/string-status'
 import { burnHoursPerDay, seasonNights } from '../../shared/schedule'
 import { loadType, type StringType } from './strings'
-import { conditionOf } from './string-engine'
 
 export async function circuitLoad(db: Db, circuitId: number) {
   const c = await db('circuits as ci')

@@ -2,10 +2,9 @@
 // included) × the client's burning hours a night × the days of the season, priced at its tariff.
 import type { Db } from '../db'
 import { energyUse, stringLoad } from '../../shared/engine/index'
-import { engineInput } from '../../shared/string-status'
+import { conditionOf, engineInput } from '../../shared/string-status'
 import { burnHoursPerDay, seasonNights } from '../../shared/schedule'
 import { loadType, type StringType } from './strings'
-import { conditionOf } from './string-engine'
 
 interface Acc {
   strings: number

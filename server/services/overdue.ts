@@ -1,5 +1,5 @@
 import type { Db } from '../db'
-import { listQueue } from './queue'
+import { listQueue } from './queue/list'
 
 /** Items within this many hours of their contract deadline count as due soon. */
 export const DUE_SOON_HOURS = 12

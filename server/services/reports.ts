@@ -1,24 +1,34 @@
 import { createHash, randomInt } from 'node:crypto'
+import type { z } from 'zod'
 import type { Db } from '../db'
 import { notFound } from '../errors'
-import { reportStateLabel } from '../../shared/schemas/reports'
-import type { z } from 'zod'
-import type { reportBody } from '../../shared/schemas/reports'
-import { refreshReportItems } from '../jobs/refresh-queue'
+import { reportStateLabel, type reportBody } from '../../shared/schemas/reports'
+import type { Conn } from './queue/items'
+import { openReportItems } from './queue/reports'
 
 // Crockford-style alphabet without I, L, O, U: easy to read out over the phone.
 const ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ'
 const newRef = () => `LW-${Array.from({ length: 5 }, () => ALPHABET[randomInt(ALPHABET.length)]).join('')}`
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d))
 
+/** Records a public report and opens its queue item in the same commit. */
 export async function createReport(db: Db, body: z.infer<typeof reportBody>, sourceIp: string) {
+  const ref = await db.transaction(async (trx) => {
+    const report = await insertReport(trx, body, sourceIp)
+    await openReportItems(trx, new Date(), [report.id])
+    return report.ref
+  })
+  return reportStatus(db, ref)
+}
+
+async function insertReport(db: Conn, body: z.infer<typeof reportBody>, sourceIp: string) {
   const s = body.tag
     ? await db('strings').where({ assetTag: body.tag.toUpperCase() }).first('id', 'lat', 'lng', 'siteId')
     : null
   const site = s ? await db('sites').where({ id: s.siteId }).first('name') : null
   let ref = newRef()
   while (await db('reports').where({ ref }).first('id')) ref = newRef()
-  await db('reports').insert({
+  const [id] = await db('reports').insert({
     ref,
     stringId: s?.id ?? null,
     tagText: body.tag ?? null,
@@ -32,8 +42,7 @@ export async function createReport(db: Db, body: z.infer<typeof reportBody>, sou
     reporterEmail: body.email ?? null,
     sourceHash: createHash('sha256').update(sourceIp).digest('hex'),
   })
-  await refreshReportItems(db, new Date())
-  return reportStatus(db, ref)
+  return { id: id as number, ref }
 }
 
 export async function reportStatus(db: Db, ref: string) {

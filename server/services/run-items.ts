@@ -1,7 +1,7 @@
 // What the planner needs to know about queue items and crews, loaded from the database.
 import type { Db } from '../db'
 import type { PlanCrew, PlanItem } from '../../shared/routing/plan-types'
-import { listQueue } from './queue'
+import { listQueue } from './queue/list'
 import { badRequest } from '../errors'
 
 /** Minutes on site per kind of work (common practice, no source; set to our crews' own timings). */

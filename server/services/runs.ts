@@ -1,7 +1,8 @@
 import type { Db } from '../db'
 import type { Mailer } from '../mail/mailer'
 import type { Config } from '../config'
-import { planRuns } from '../../shared/routing/plan'
+import { planRunsInPool, type JobOwner } from '../workers/heavy-jobs'
+import { audit } from './audit'
 import type { PlanResult } from '../../shared/routing/plan-types'
 import type { CrewRun, PlanBody, PlanResultView } from '../../shared/schemas/runs'
 import { loadCrews, loadItems, toPlanCrew, toPlanItem, type CrewInfo, type ItemInfo } from './run-items'
@@ -60,6 +61,7 @@ export async function proposePlan(
   db: Db,
   body: PlanBody,
   config: Pick<Config, 'ROUTING_URL'> = {},
+  owner?: JobOwner,
 ): Promise<PlanResultView> {
   const crews = await loadCrews(db, body.crewIds)
   const items = await loadItems(db, body.itemIds)
@@ -69,17 +71,21 @@ export async function proposePlan(
     ...[...items.values()].map((i) => ({ lat: i.lat, lng: i.lng })),
   ])
   const pins = new Map(body.pins.map((p) => [p.itemId, p]))
-  const result = planRuns({
-    crews: crews.map(toPlanCrew),
-    items: [...items.values()].map((i) => {
-      const pin = pins.get(i.itemId)
-      return {
-        ...toPlanItem(i),
-        ...(pin ? { pinnedCrewId: String(pin.crewId), pinnedIndex: pin.index } : {}),
-      }
-    }),
-    settings: { speedKmh: body.speedKmh, detourFactor: body.detourFactor, matrixMinutes: travel.minutes },
-  })
+  // About 2 s for the largest plan: on a worker thread, not the event loop.
+  const result = await planRunsInPool(
+    {
+      crews: crews.map(toPlanCrew),
+      items: [...items.values()].map((i) => {
+        const pin = pins.get(i.itemId)
+        return {
+          ...toPlanItem(i),
+          ...(pin ? { pinnedCrewId: String(pin.crewId), pinnedIndex: pin.index } : {}),
+        }
+      }),
+      settings: { speedKmh: body.speedKmh, detourFactor: body.detourFactor, matrixMinutes: travel.minutes },
+    },
+    owner,
+  )
   const pinned = new Set(pins.keys())
   return {
     date: body.date,
@@ -114,6 +120,7 @@ export async function publishRuns(
     speedKmh?: number
     detourFactor?: number
   },
+  ctx: { requestId?: string; owner?: JobOwner } = {},
 ) {
   const plan = await proposePlan(
     db,
@@ -126,6 +133,7 @@ export async function publishRuns(
       detourFactor: body.detourFactor,
     },
     config,
+    ctx.owner,
   )
   const now = new Date()
   const notices: { crewId: number; changed: boolean }[] = []
@@ -170,6 +178,13 @@ export async function publishRuns(
       }
       notices.push({ crewId: run.crewId, changed: prev?.state === 'published' })
     }
+    await audit(trx, {
+      userId,
+      action: 'publish',
+      entity: 'run',
+      details: { date: body.date, crews: body.runs.map((r) => r.crewId) },
+      requestId: ctx.requestId,
+    })
   })
   const saved = await listRuns(db, body.date)
   for (const n of notices) {

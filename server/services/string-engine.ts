@@ -1,5 +1,5 @@
 // The engine applied to a string as recorded: its condition, assessment and forecast.
-import { engineInput, forecastInput } from '../../shared/string-status'
+import { conditionOf, engineInput, forecastInput } from '../../shared/string-status'
 import { forecast } from '../../shared/engine/forecast'
 import { assess } from '../../shared/engine/assess'
 import type { StringType } from './strings'
@@ -11,10 +11,6 @@ export interface StringRecord {
   dark: number | boolean
   isolated: number | boolean
   lampAgeHours: number
-}
-
-export function conditionOf(s: StringRecord) {
-  return { lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated }
 }
 
 /** Assessed at the string's own design supply: a 24 V curtain hangs on a 230 V circuit through its driver. */

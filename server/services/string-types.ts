@@ -1,9 +1,8 @@
 import type { Db } from '../db'
 import { notFound } from '../errors'
-import { stringStatus } from '../../shared/string-status'
+import { conditionOf, stringStatus } from '../../shared/string-status'
 import { loadType } from './strings'
-import { conditionOf } from './string-engine'
-import { syncStringQueue } from './queue-sync'
+import { syncStringQueue } from './queue/strings'
 
 export async function listStringTypes(db: Db) {
   const rows = await db('stringTypes').orderBy('code').select('id')

@@ -35,11 +35,37 @@ function mapUser(r: Record<string, unknown>): UserRow {
 
 export const hashToken = (t: string): string => createHash('sha256').update(t).digest('hex')
 
-export async function findActiveUser(db: Db, id: number) {
-  const u = await db('users').where({ id, active: true }).first('id', 'name', 'email', 'role', 'crewId')
-  return u ? { ...u, crewId: u.crewId ?? null } : null
+/** What a session needs: the public user and the token version its tokens must carry. */
+export interface SessionUser {
+  id: number
+  name: string
+  email: string
+  role: Role
+  crewId: number | null
+  tokenVersion: number
 }
 
+const sessionColumns = ['id', 'name', 'email', 'role', 'crewId', 'tokenVersion'] as const
+
+function toSession(u: Record<string, unknown>): SessionUser {
+  return {
+    id: Number(u.id),
+    name: String(u.name),
+    email: String(u.email),
+    role: u.role as Role,
+    crewId: (u.crewId as number | null) ?? null,
+    tokenVersion: Number(u.tokenVersion ?? 0),
+  }
+}
+
+export async function findActiveUser(db: Db, id: number): Promise<SessionUser | null> {
+  const u = await db('users')
+    .where({ id, active: true })
+    .first(...sessionColumns)
+  return u ? toSession(u) : null
+}
+
+/** The user when the password is right and the account active; null otherwise. Writes nothing. */
 export async function verifyCredentials(db: Db, email: string, password: string) {
   const u = await db('users').where({ email }).first()
   // Compare against a fixed hash when the user is unknown so timing does not reveal accounts.
@@ -47,8 +73,37 @@ export async function verifyCredentials(db: Db, email: string, password: string)
   const hash = u?.passwordHash ?? dummyHash
   const ok = await bcrypt.compare(password, hash)
   if (!u || !ok || !u.active || !u.passwordHash) return null
-  await db('users').where({ id: u.id }).update({ lastSignInAt: new Date() })
-  return { id: u.id, name: u.name, email: u.email, role: u.role as Role, crewId: u.crewId ?? null }
+  return toSession(u)
+}
+
+export async function recordSignIn(db: Db, id: number): Promise<void> {
+  await db('users').where({ id }).update({ lastSignInAt: new Date() })
+}
+
+/** Ends every session the user holds: tokens carrying the old version stop working. */
+export async function revokeSessions(db: Db, id: number): Promise<SessionUser> {
+  await db('users')
+    .where({ id })
+    .update({ tokenVersion: db.raw('token_version + 1') })
+  const u = await db('users')
+    .where({ id })
+    .first(...sessionColumns)
+  if (!u) throw notFound('User')
+  return toSession(u)
+}
+
+/** The signed-in user's current password, checked before a change: 400 wrong_password otherwise. */
+export async function checkPassword(db: Db, id: number, password: string): Promise<void> {
+  const u = await db('users').where({ id }).first('passwordHash')
+  if (!u?.passwordHash || !(await bcrypt.compare(password, u.passwordHash)))
+    throw badRequest('wrong_password', 'The current password is not right.')
+}
+
+/** A new password and a new token version: every session made with the old one ends. */
+export async function setPassword(db: Db, id: number, password: string): Promise<SessionUser> {
+  const passwordHash = await bcrypt.hash(password, BCRYPT_COST)
+  await db('users').where({ id }).update({ passwordHash })
+  return revokeSessions(db, id)
 }
 
 export async function listUsers(db: Db): Promise<UserRow[]> {
@@ -66,6 +121,7 @@ export async function getUser(db: Db, id: number): Promise<UserRow> {
   return mapUser(r)
 }
 
+/** Creates an invited user; the caller sends the mail with the returned token and audits in its transaction. */
 export async function inviteUser(
   db: Db,
   input: { name: string; email: string; role: Role; crewId?: number | null },
@@ -87,9 +143,11 @@ export async function inviteUser(
   return { user: await getUser(db, id), token }
 }
 
-export async function acceptInvite(db: Db, token: string, password: string) {
+/** Sets the password of a pending invitation; run it in a transaction (the row is locked). */
+export async function acceptInvite(db: Db, token: string, password: string): Promise<SessionUser> {
   const u = await db('users')
     .where({ inviteTokenHash: hashToken(token), active: true })
+    .forUpdate()
     .first()
   if (!u || new Date(u.inviteExpiresAt) < new Date()) {
     throw badRequest('invalid_invite', 'This invitation link is not valid or has expired.')
@@ -101,19 +159,37 @@ export async function acceptInvite(db: Db, token: string, password: string) {
       inviteTokenHash: null,
       lastSignInAt: new Date(),
     })
-  return { id: u.id, name: u.name, email: u.email, role: u.role as Role, crewId: u.crewId ?? null }
+  return toSession(u)
 }
 
+/**
+ * Role, crew or active flag. Run it in a transaction: demoting or deactivating an admin first locks
+ * the active admins' rows, so two admins demoting each other at once cannot leave none.
+ */
 export async function updateUser(
   db: Db,
   actorId: number,
   id: number,
   patch: { role?: Role; active?: boolean; crewId?: number | null },
 ): Promise<UserRow> {
-  await getUser(db, id)
   if (id === actorId && (patch.active === false || (patch.role && patch.role !== 'admin'))) {
     throw badRequest('cannot_demote_self', 'You cannot deactivate yourself or remove your own admin role.')
   }
-  await db('users').where({ id }).update(patch)
+  const removesAdmin = patch.active === false || (patch.role !== undefined && patch.role !== 'admin')
+  // Locked before the target row so every such change takes its locks in the same order.
+  const admins: { id: number }[] = removesAdmin
+    ? await db('users').where({ role: 'admin', active: true }).forUpdate().select('id')
+    : []
+  const target = await db('users').where({ id }).forUpdate().first('role', 'active')
+  if (!target) throw notFound('User')
+  if (removesAdmin && admins.some((a) => a.id === id) && admins.length <= 1) {
+    throw conflict('last_admin', 'This is the last active admin. Make someone else an admin first.')
+  }
+  const revoke =
+    (patch.role !== undefined && patch.role !== target.role) ||
+    (patch.active === false && Boolean(target.active))
+  await db('users')
+    .where({ id })
+    .update({ ...patch, ...(revoke ? { tokenVersion: db.raw('token_version + 1') } : {}) })
   return getUser(db, id)
 }

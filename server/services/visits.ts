@@ -1,10 +1,11 @@
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
-import { applyVisit, shuntedLampCount, stringStatus } from '../../shared/string-status'
+import { conditionOf, shuntedLampCount, stringStatus } from '../../shared/string-status'
+import { applyVisit, countErrors, isRelamping } from '../../shared/visit-rules'
 import { loadType } from './strings'
 import { requireIsolatedFor } from './isolations'
-import { syncStringQueue } from './queue-sync'
+import { syncStringQueue } from './queue/strings'
 
 const invalid = (field: string, message: string) =>
   badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
@@ -39,19 +40,9 @@ export async function logVisit(
       const s = await trx('strings').where({ id: body.stringId }).forUpdate().first()
       if (!s) throw notFound('String')
       const type = await loadType(trx as unknown as Db, s.typeId)
-      const capacity = shuntedLampCount(type)
-      const outNow = s.lampsOut + body.failedFound
-      if (outNow > capacity)
-        throw invalid(
-          'failedFound',
-          `This string has ${capacity} lamps; ${s.lampsOut} are already recorded out.`,
-        )
-      if (body.replaced > outNow)
-        throw invalid(
-          'replaced',
-          `Only ${outNow} lamps are out (${s.lampsOut} recorded + ${body.failedFound} found).`,
-        )
-      const touches = body.replaced > 0 || !!body.fuseReplaced
+      const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
+      if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
+      if (counts.replaced) throw invalid('replaced', counts.replaced)
       let isolationId: number | null = body.isolationId ?? null
       if (body.isolationKey) {
         const iso = await trx('isolations').where({ idempotencyKey: body.isolationKey }).first('id')
@@ -63,16 +54,13 @@ export async function logVisit(
         isolationId = iso.id
       }
       if (isolationId) await requireIsolatedFor(trx, isolationId, s.id)
-      else if (touches && !body.noIsolationReason) {
+      else if (isRelamping(body) && !body.noIsolationReason) {
         throw badRequest(
           'isolation_required',
           'Record the isolation steps before relamping, or say why none was needed.',
         )
       }
-      const cond = applyVisit(
-        { lampsOut: s.lampsOut, fuseFailed: !!s.fuseFailed, dark: !!s.dark, isolated: !!s.isolated },
-        body,
-      )
+      const cond = applyVisit(conditionOf(s), body)
       const { status, replaceNow, result } = stringStatus(type, cond)
       const now = new Date()
       const [id] = await trx('visits').insert({

@@ -1,4 +1,5 @@
-import type { AssessRequest, AssessResponse, StringState } from '../schemas/engine'
+import type { AssessRequest, AssessResponse } from '../schemas/engine'
+import type { EngineState } from '../schemas/string-states'
 import { DEFAULT_LIFE_EXPONENT, DEFAULT_REPLACE_AT_RATIO } from './defaults'
 import { lampFactors } from './lamp-laws'
 import { assessReasons } from './reasons'
@@ -39,7 +40,7 @@ export function assess(input: AssessRequest): AssessResponse {
   const maxRatio = maxAt >= 0 ? classes[maxAt].ratio : 0
   const replaceNow = condition.dark || maxRatio >= replaceAtRatio - 1e-9
   const anyOut = input.lamps.some((c) => lampsFailed(c) > 0)
-  const state: StringState = condition.dark ? 'dark' : replaceNow ? 'replace-now' : anyOut ? 'watch' : 'lit'
+  const state: EngineState = condition.dark ? 'dark' : replaceNow ? 'replace' : anyOut ? 'watch' : 'lit'
   const reasons = assessReasons({
     wiring,
     lamps: input.lamps,

@@ -50,3 +50,20 @@ export const DEFAULT_LED_INRUSH_MULTIPLE = 2
 // Continuous load kept to 80 % of the breaker rating (common practice; NEC 210.21(B)(2) applies the
 // same 80 % to cord-and-plug loads on a 15 A receptacle).
 export const CONTINUOUS_LOAD_FRACTION = 0.8
+
+// Largest forecast run on request, in lamp-trials (trials × lamps in circuit); larger ones are refused
+// before any work starts. Its worst case (50 classes of mixed ratings, no shunt ever opening) runs
+// about 1 s on one core; 2,000 lamps × 2,000 trials, twice this, stalled the server for 2 s while
+// forecasts still ran on the event loop (measured here; common practice, no source).
+export const MAX_FORECAST_COST = 2_000_000
+
+/** A forecast's cost in lamp-trials: the lamps still in circuit times the trials asked for. */
+export function forecastCost(input: { trials?: number; lamps: { count: number; failed?: number }[] }): {
+  lamps: number
+  trials: number
+  cost: number
+} {
+  const lamps = input.lamps.reduce((n, c) => n + Math.max(0, c.count - Math.min(c.failed ?? 0, c.count)), 0)
+  const trials = input.trials ?? DEFAULT_TRIALS
+  return { lamps, trials, cost: lamps * trials }
+}

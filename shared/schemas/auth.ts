@@ -41,3 +41,10 @@ export const userPatch = z
   })
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change.')
 export const userResponse = z.object({ user: userRow })
+
+/** A new password for the signed-in user: at least 12 characters, like the first admin's. */
+export const NEW_PASSWORD_MIN = 12
+export const changePasswordBody = z.object({
+  currentPassword: z.string().min(1).max(200),
+  newPassword: z.string().min(NEW_PASSWORD_MIN, `Use at least ${NEW_PASSWORD_MIN} characters.`).max(200),
+})

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { statusSchema } from './string-states'
 
 const use = {
   watts: z.number(),
@@ -36,7 +37,7 @@ export const registerQuery = z.object({
   q: z.string().trim().max(80).optional(),
   siteId: z.coerce.number().int().positive().optional(),
   typeId: z.coerce.number().int().positive().optional(),
-  status: z.enum(['lit', 'watch', 'replace', 'dark', 'safe']).optional(),
+  status: statusSchema.optional(),
 })
 export const registerList = z.object({
   items: z.array(
@@ -44,7 +45,7 @@ export const registerList = z.object({
       id: z.number(),
       assetTag: z.string(),
       name: z.string(),
-      status: z.enum(['lit', 'watch', 'replace', 'dark', 'safe']),
+      status: statusSchema,
       lampsOut: z.number(),
       typeCode: z.string(),
       typeName: z.string(),

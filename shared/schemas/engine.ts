@@ -2,6 +2,7 @@
 // take the *input* types (defaults optional) so the client can preview; the server parses first.
 import { z } from 'zod'
 import * as D from '../engine/defaults'
+import { engineStateSchema } from './string-states'
 
 const volts = z.number().positive().max(1000)
 const amps = z.number().positive().max(100)
@@ -43,7 +44,6 @@ export const assessRequestSchema = z.object({
   replaceAtRatio: z.number().min(1).max(2).default(D.DEFAULT_REPLACE_AT_RATIO),
 })
 
-export const stringStateSchema = z.enum(['lit', 'watch', 'replace-now', 'dark'])
 export const assessClassSchema = z.object({
   lampsInCircuit: int,
   voltsPerLamp: z.number(),
@@ -55,7 +55,7 @@ export const assessClassSchema = z.object({
 })
 export const assessResponseSchema = z.object({
   lit: z.boolean(),
-  state: stringStateSchema,
+  state: engineStateSchema,
   stringAmps: z.number(),
   stringWatts: z.number(),
   maxRatio: z.number(),
@@ -181,7 +181,6 @@ export const stringLoadRequestSchema = assessRequestSchema.extend({
 
 export type LampClassInput = z.input<typeof lampClassSchema>
 export type ForecastLampClassInput = z.input<typeof forecastLampClassSchema>
-export type StringState = z.infer<typeof stringStateSchema>
 export type AssessRequest = z.input<typeof assessRequestSchema>
 export type AssessResponse = z.infer<typeof assessResponseSchema>
 export type AssessClass = z.infer<typeof assessClassSchema>

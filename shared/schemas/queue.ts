@@ -1,5 +1,6 @@
 import { z } from 'zod'
-import { statusSchema } from './strings'
+import { statusLabel, statusSchema, type StringStatus } from './string-states'
+import { reportClosedStates } from './reports'
 
 export const queueKinds = [
   'replace_now',
@@ -9,14 +10,22 @@ export const queueKinds = [
   'certificate_due',
   'rcd_failed',
 ] as const
-export const queueKindLabel: Record<(typeof queueKinds)[number], string> = {
-  replace_now: 'Replace now',
+export type QueueKind = (typeof queueKinds)[number]
+export const queueKindLabel: Record<QueueKind, string> = {
+  replace_now: statusLabel.replace,
   dark: 'Dark string',
   forecast_dark: 'Forecast to go dark',
   public_report: 'Public report',
   certificate_due: 'Certificate due',
   rcd_failed: 'RCD test failed',
 }
+
+/** The kind of item a string in this state needs; the other states need none. */
+export const stringStatusKind = { replace: 'replace_now', dark: 'dark' } as const satisfies Partial<
+  Record<StringStatus, QueueKind>
+>
+
+export const queueItemStates = ['open', 'snoozed', 'closed', 'merged'] as const
 
 export const queueQuery = z.object({
   clientId: z.coerce.number().int().positive().optional(),
@@ -32,7 +41,7 @@ export const queueItem = z.object({
   id: z.number(),
   kind: z.enum(queueKinds),
   severity: z.enum(['emergency', 'standard']),
-  state: z.enum(['open', 'snoozed', 'closed', 'merged']),
+  state: z.enum(queueItemStates),
   summary: z.string(),
   openedAt: z.string(),
   dueBy: z.string(),
@@ -43,6 +52,8 @@ export const queueItem = z.object({
   why: z.array(z.string()),
   snoozedUntil: z.string().nullable(),
   snoozeReason: z.string().nullable(),
+  /** Why a supervisor closed it without a visit. */
+  closeReason: z.string().nullable(),
   mergedCount: z.number(),
   string: z
     .object({
@@ -78,5 +89,9 @@ export const mergeBody = z.object({
   into: z.number().int().positive(),
   ids: z.array(z.number().int().positive()).min(1).max(50),
 })
-export const closeBody = z.object({ reason: z.string().trim().min(3).max(255) })
+export const closeBody = z.object({
+  reason: z.string().trim().min(3).max(255),
+  /** For a public-report item: what the reporter's status page says now. Fixed when not given. */
+  reportState: z.enum(reportClosedStates).optional(),
+})
 export const refreshResult = z.object({ opened: z.number(), open: z.number() })

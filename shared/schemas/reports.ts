@@ -18,7 +18,13 @@ export const reportBody = z
   })
 
 export const reportStates = ['received', 'in_hand', 'fixed', 'not_ours', 'duplicate'] as const
-export const reportStateLabel: Record<(typeof reportStates)[number], string> = {
+export type ReportState = (typeof reportStates)[number]
+/** A report in one of these states has work waiting: the queue keeps an item open for it. */
+export const reportOpenStates = ['received', 'in_hand'] as const satisfies readonly ReportState[]
+/** Where a report goes when its queue item closes. */
+export const reportClosedStates = ['fixed', 'not_ours', 'duplicate'] as const satisfies readonly ReportState[]
+export type ReportClosedState = (typeof reportClosedStates)[number]
+export const reportStateLabel: Record<ReportState, string> = {
   received: 'Received',
   in_hand: 'A crew has it in hand',
   fixed: 'Fixed',

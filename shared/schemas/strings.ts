@@ -1,8 +1,6 @@
 import { z } from 'zod'
-import { statuses } from '../string-status'
+import { statusSchema } from './string-states'
 import { circuitResponseSchema } from './engine'
-
-export const statusSchema = z.enum(statuses)
 
 export const bboxQuery = z.object({
   bbox: z

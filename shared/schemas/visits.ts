@@ -1,5 +1,6 @@
 import { z } from 'zod'
-import { statusSchema } from './strings'
+import { statusSchema } from './string-states'
+import { NO_ISOLATION_MESSAGE, NO_ISOLATION_MIN } from '../visit-rules'
 
 // Safe-isolation steps before work (Electricity at Work Regulations 1989 regs 12–14; HSE HSG85;
 // testers to HSE GS38), then the steps that hand the string back.
@@ -80,7 +81,7 @@ export const visitBody = z
     isolationId: z.number().int().positive().optional(),
     /** The isolation's own idempotency key, for visits queued offline before the isolation had an id. */
     isolationKey: idempotencyKey.optional(),
-    noIsolationReason: z.string().trim().min(10, 'Say why in at least 10 characters.').max(255).optional(),
+    noIsolationReason: z.string().trim().min(NO_ISOLATION_MIN, NO_ISOLATION_MESSAGE).max(255).optional(),
     visitedAt: z.iso.datetime({ offset: true }).optional(),
     lat: z.number().min(-90).max(90).optional(),
     lng: z.number().min(-180).max(180).optional(),

@@ -16,4 +16,7 @@ export const authApi = {
   signOut: () => http.post<void>('/auth/sign-out'),
   acceptInvite: (token: string, password: string) =>
     http.post<SessionResponse>('/auth/accept-invite', { token, password }),
+  /** Ends every other session of the user; this device gets a fresh one in the answer's cookie. */
+  changePassword: (currentPassword: string, newPassword: string) =>
+    http.post<SessionResponse>('/auth/password', { currentPassword, newPassword }),
 }

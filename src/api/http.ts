@@ -1,6 +1,6 @@
-// The one way the client talks to the server: same origin, session cookie, JSON both ways.
-// Every failure surfaces as an ApiError carrying the server's stable `code`, so pages branch on
-// codes rather than on message text.
+// The one way the client talks to the server: same origin, session cookie, JSON both ways (or a form
+// for uploads). Every failure surfaces as an ApiError carrying the server's stable `code`, so pages
+// branch on codes rather than on message text.
 
 export const API_BASE = '/api/v1'
 
@@ -22,8 +22,16 @@ export type Query = Record<string, string | number | boolean | null | undefined>
 
 export interface RequestOptions {
   query?: Query
+  /** Sent as JSON, or as it is when a FormData. */
   body?: unknown
   signal?: AbortSignal
+  headers?: Record<string, string>
+  /** Gives up (as a network error, so it is retried) when the server has not answered by then. */
+  timeoutMs?: number
+  /** Upload progress, 0 to 1. Only uploads need it; they then go through XMLHttpRequest. */
+  onUploadProgress?: (fraction: number) => void
+  /** false: a 401 is only thrown, not reported as the session ending (the outbox says so itself). */
+  reportSessionEnd?: boolean
 }
 
 function buildUrl(path: string, query?: Query): string {
@@ -37,58 +45,120 @@ function buildUrl(path: string, query?: Query): string {
   return qs ? `${url}?${qs}` : url
 }
 
-interface ErrorBody {
-  error?: { code?: string; message?: string; details?: unknown }
-}
-
-async function toApiError(res: Response): Promise<ApiError> {
-  let body: ErrorBody | null = null
-  try {
-    body = (await res.json()) as ErrorBody
-  } catch {
-    // A proxy or crash page answered instead of the API; fall through to a generic error.
-  }
-  const err = body?.error
-  return new ApiError(
-    res.status,
-    err?.code ?? `http_${res.status}`,
-    err?.message ?? res.statusText ?? 'Request failed',
-    err?.details,
-  )
-}
-
 // Set once at start-up (main.ts): what to do when the session has ended mid-use.
 let onUnauthenticated: (() => void) | null = null
 export function setUnauthenticatedHandler(handler: () => void): void {
   onUnauthenticated = handler
 }
 
-export async function request<T>(method: string, path: string, options: RequestOptions = {}): Promise<T> {
-  const headers: Record<string, string> = { Accept: 'application/json' }
-  const init: RequestInit = { method, credentials: 'include', headers, signal: options.signal }
-  if (options.body !== undefined) {
-    headers['Content-Type'] = 'application/json'
-    init.body = JSON.stringify(options.body)
-  }
+/** What either transport brings back, before it is read as the answer or as an ApiError. */
+interface Raw {
+  status: number
+  statusText: string
+  text: string
+}
 
-  let res: Response
+function networkError(): ApiError {
+  // status 0 marks "never reached the server": weak signal, server down, or offline.
+  return new ApiError(0, 'network_error', 'Could not reach the server. Check the connection and try again.')
+}
+
+function toApiError(raw: Raw): ApiError {
+  let body: { error?: { code?: string; message?: string; details?: unknown } } | null = null
   try {
-    res = await fetch(buildUrl(path, options.query), init)
-  } catch (cause) {
-    if (cause instanceof DOMException && cause.name === 'AbortError') throw cause
-    // status 0 marks "never reached the server": weak signal, server down, or offline.
-    throw new ApiError(0, 'network_error', 'Could not reach the server. Check the connection and try again.')
+    body = JSON.parse(raw.text)
+  } catch {
+    // A proxy or crash page answered instead of the API; fall through to a generic error.
   }
+  const err = body?.error
+  return new ApiError(
+    raw.status,
+    err?.code ?? `http_${raw.status}`,
+    err?.message ?? (raw.statusText || 'Request failed'),
+    err?.details,
+  )
+}
 
-  if (!res.ok) {
-    const error = await toApiError(res)
+function readAnswer<T>(raw: Raw, path: string, options: RequestOptions): T {
+  if (raw.status < 200 || raw.status >= 300) {
+    const error = toApiError(raw)
     // `/auth/me` answering 401 is the normal "not signed in" case at start-up, not an expiry.
-    if (error.code === 'unauthenticated' && path !== '/auth/me') onUnauthenticated?.()
+    const report = options.reportSessionEnd !== false && path !== '/auth/me'
+    if (error.code === 'unauthenticated' && report) onUnauthenticated?.()
     throw error
   }
-  if (res.status === 204) return undefined as T
-  const text = await res.text()
-  return (text ? JSON.parse(text) : undefined) as T
+  if (!raw.text) return undefined as T
+  try {
+    return JSON.parse(raw.text) as T
+  } catch {
+    throw new ApiError(raw.status, 'bad_response', 'The server answered with something unreadable.')
+  }
+}
+
+async function viaFetch(
+  method: string,
+  url: string,
+  headers: Record<string, string>,
+  options: RequestOptions,
+) {
+  const body = encode(options.body)
+  let signal = options.signal
+  let timer: ReturnType<typeof setTimeout> | undefined
+  if (options.timeoutMs) {
+    const own = new AbortController()
+    timer = setTimeout(() => own.abort(), options.timeoutMs)
+    if (signal?.aborted) own.abort()
+    else signal?.addEventListener('abort', () => own.abort(), { once: true })
+    signal = own.signal
+  }
+  try {
+    const res = await fetch(url, { method, credentials: 'include', headers, signal, body })
+    return { status: res.status, statusText: res.statusText, text: await res.text() }
+  } catch (cause) {
+    // The caller's own abort stays an abort; a timeout counts as no answer.
+    if (options.signal?.aborted) throw cause
+    throw networkError()
+  } finally {
+    clearTimeout(timer)
+  }
+}
+
+// fetch cannot report upload progress; XMLHttpRequest can.
+function viaXhr(method: string, url: string, headers: Record<string, string>, options: RequestOptions) {
+  return new Promise<Raw>((resolve, reject) => {
+    const xhr = new XMLHttpRequest()
+    xhr.open(method, url)
+    xhr.withCredentials = true
+    xhr.timeout = options.timeoutMs ?? 0
+    for (const [name, value] of Object.entries(headers)) xhr.setRequestHeader(name, value)
+    const report = options.onUploadProgress
+    xhr.upload.onprogress = (e) => {
+      if (report && e.lengthComputable && e.total > 0) report(e.loaded / e.total)
+    }
+    xhr.onload = () =>
+      xhr.status === 0
+        ? reject(networkError())
+        : resolve({ status: xhr.status, statusText: xhr.statusText, text: xhr.responseText })
+    xhr.onerror = xhr.ontimeout = () => reject(networkError())
+    xhr.onabort = () => reject(options.signal?.reason ?? networkError())
+    options.signal?.addEventListener('abort', () => xhr.abort(), { once: true })
+    xhr.send(encode(options.body) ?? null)
+  })
+}
+
+function encode(body: unknown): string | FormData | undefined {
+  if (body === undefined || body instanceof FormData) return body
+  return JSON.stringify(body)
+}
+
+export async function request<T>(method: string, path: string, options: RequestOptions = {}): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json', ...options.headers }
+  // A FormData sets its own multipart type, boundary included.
+  if (options.body !== undefined && !(options.body instanceof FormData))
+    headers['Content-Type'] = 'application/json'
+  const url = buildUrl(path, options.query)
+  const send = options.onUploadProgress ? viaXhr : viaFetch
+  return readAnswer<T>(await send(method, url, headers, options), path, options)
 }
 
 export const http = {

@@ -1,6 +1,5 @@
 import type { z } from 'zod'
 import type { mapItem, mapList, stringDetail, tagLookup, CircuitLoad } from '../../shared/schemas/strings'
-import type { basemap } from '../../shared/schemas/system'
 import type { AssessResponse, ForecastResponse } from '../../shared/schemas/engine'
 import { http } from './http'
 
@@ -10,8 +9,6 @@ export type TagLookup = z.infer<typeof tagLookup>
 export type StringDetail = z.infer<typeof stringDetail>
 export type StringVisit = StringDetail['visits'][number]
 export type StringCertificate = StringDetail['certificates'][number]
-export type Basemap = z.infer<typeof basemap>
-export type BasemapFeature = Basemap['features'][number]
 /** minLng, minLat, maxLng, maxLat */
 export type Bbox = [number, number, number, number]
 
@@ -32,10 +29,9 @@ export const stringsApi = {
     http.get<MapList>('/strings', { bbox: bbox.map(coord).join(',') }, signal),
   search: (q: string, signal?: AbortSignal) => http.get<MapList>('/strings', { q, limit: 40 }, signal),
   byTag: (tag: string) => http.get<TagLookup>(`/strings/by-tag/${encodeURIComponent(tag)}`),
-  get: (id: number | string) => http.get<StringDetail>(`/strings/${encodeURIComponent(String(id))}`),
+  get: (id: number | string, signal?: AbortSignal) =>
+    http.get<StringDetail>(`/strings/${encodeURIComponent(String(id))}`, undefined, signal),
   circuitLoad: (circuitId: number) => http.get<CircuitLoad>(`/circuits/${circuitId}/load`),
-  // The demo town's own streets; drawn only when the server has no tile source configured.
-  basemap: () => http.get<Basemap>('/basemap'),
 }
 
 export type { CircuitLoad }

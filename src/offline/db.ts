@@ -1,11 +1,11 @@
 // The phone's own store (IndexedDB via idb): the outbox of unsent writes, and copies of the run and
 // its strings so the visit form still works without signal.
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb'
-import type { MyRun } from '../api/runs-mine'
+import type { MyRun } from '../api/runs'
 import type { StringDetail } from '../../shared/schemas/strings'
 import type { VisitResult } from '../api/visits'
-import type { VisitDraft } from '../components/visit/visit-draft'
 import type { OutboxEntry } from './outbox-types'
+import type { VisitDraft } from './visit-record'
 
 export interface CachedString {
   id: number

@@ -1,8 +1,8 @@
 // Unsaved visit forms, one per string, so nothing typed is lost when the phone locks or the tab dies.
-import { plainDraft, type VisitDraft } from '../components/visit/visit-draft'
 import { offlineDb } from './db'
 import { getEntry, groupEntries } from './outbox-repo'
 import type { EntryError, PhotoEntry, VisitEntry } from './outbox-types'
+import { plainDraft, type VisitDraft } from './visit-record'
 
 export async function loadDraft(stringId: number): Promise<VisitDraft | null> {
   return (await (await offlineDb()).get('drafts', stringId)) ?? null

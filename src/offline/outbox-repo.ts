@@ -1,8 +1,7 @@
 // Reading and writing outbox entries in IndexedDB. Every write lands here before any network call.
-import type { VisitDraft } from '../components/visit/visit-draft'
-import { newKey, plainDraft, stamp, toIsolationBody, toVisitBody } from '../components/visit/visit-draft'
 import { offlineDb } from './db'
-import type { OutboxEntry, PhotoEntry } from './outbox-types'
+import type { OutboxEntry, PhotoEntry, QueuedSave } from './outbox-types'
+import { plainDraft, type VisitDraft } from './visit-record'
 
 /** Sent entries stay listed for a while as a receipt, then go. */
 const KEEP_SENT_MS = 2 * 24 * 3600 * 1000
@@ -49,8 +48,8 @@ export async function pruneSent(now = Date.now()): Promise<void> {
  * entry per photo, in that order. Re-saving a refused save replaces its unsent entries under the same
  * keys, so the server still sees one isolation and one visit.
  */
-export async function queueSave(draft: VisitDraft, userId: number): Promise<string> {
-  const groupId = draft.groupId ?? newKey()
+export async function queueSave(save: QueuedSave, userId: number): Promise<string> {
+  const { groupId, draft } = save
   const now = new Date().toISOString()
   const base = {
     groupId,
@@ -65,9 +64,14 @@ export async function queueSave(draft: VisitDraft, userId: number): Promise<stri
     sentAt: null,
   }
   const entries: OutboxEntry[] = []
-  const isolation = toIsolationBody(draft)
-  if (isolation)
-    entries.push({ ...base, kind: 'isolation', key: draft.isolationKey, seq: nextSeq(), body: isolation })
+  if (save.isolation)
+    entries.push({
+      ...base,
+      kind: 'isolation',
+      key: draft.isolationKey,
+      seq: nextSeq(),
+      body: save.isolation,
+    })
   // Photos live in their own entries; reopening a refused save collects them from there.
   const stored: VisitDraft = { ...plainDraft(draft), groupId, photos: [] }
   entries.push({
@@ -75,8 +79,7 @@ export async function queueSave(draft: VisitDraft, userId: number): Promise<stri
     kind: 'visit',
     key: draft.visitKey,
     seq: nextSeq(),
-    // The time of the save is when the work was done, however late the upload.
-    body: toVisitBody(draft, stamp()),
+    body: save.visit,
     draft: stored,
     result: null,
   })

@@ -1,7 +1,7 @@
 import type { IsolationBody, VisitBody } from '../../shared/schemas/visits'
 import type { PhotoItem } from '../../shared/schemas/photos'
 import type { VisitResult } from '../api/visits'
-import type { VisitDraft } from '../components/visit/visit-draft'
+import type { VisitDraft } from './visit-record'
 
 export type EntryKind = 'isolation' | 'visit' | 'photo'
 /** pending: waiting or retrying; failed: the server refused it (4xx) and a person must decide; sent: done. */
@@ -58,3 +58,13 @@ export interface PhotoEntry extends EntryBase {
 }
 
 export type OutboxEntry = IsolationEntry | VisitEntry | PhotoEntry
+
+/** One save of the visit form as the form hands it over: its requests, built, and what was typed. */
+export interface QueuedSave {
+  /** The save being replaced (a refused one reopened), or a new key. */
+  groupId: string
+  isolation: IsolationBody | null
+  visit: VisitBody
+  /** Kept to reopen a refused save; its photos become entries of their own. */
+  draft: VisitDraft
+}

@@ -1,5 +1,5 @@
 // The last copy of each day's run, per user, for opening tonight's run without signal.
-import type { MyRun } from '../api/runs-mine'
+import type { MyRun } from '../api/runs'
 import { offlineDb } from './db'
 
 export async function saveRun(userId: number, run: MyRun): Promise<void> {

@@ -1,6 +1,7 @@
 // Copies of string details on the phone, so the visit form opens and previews without signal.
 import { ApiError } from '../api/http'
-import { visitsApi, type StringDetail, type VisitResult } from '../api/visits'
+import { stringsApi, type StringDetail } from '../api/strings'
+import type { VisitResult } from '../api/visits'
 import { offlineDb, type CachedString } from './db'
 
 export interface LoadedString {
@@ -41,7 +42,7 @@ export async function cachedString(id: number): Promise<LoadedString | null> {
 
 export async function loadString(id: number): Promise<LoadedString> {
   try {
-    const detail = await visitsApi.stringDetail(id)
+    const detail = await stringsApi.get(id)
     await save(detail).catch(() => undefined)
     return { detail: (await cachedString(id))?.detail ?? detail, savedAt: null }
   } catch (err) {
@@ -66,7 +67,7 @@ export async function prefetchStrings(ids: number[], onDone?: (count: number) =>
   const worker = async () => {
     for (let id = queue.shift(); id !== undefined; id = queue.shift()) {
       try {
-        await save(await visitsApi.stringDetail(id))
+        await save(await stringsApi.get(id))
         done++
         onDone?.(done)
       } catch {

@@ -44,11 +44,17 @@ export const useAuthStore = defineStore('auth', () => {
     return res.user
   }
 
+  async function changePassword(currentPassword: string, newPassword: string): Promise<void> {
+    const res = await authApi.changePassword(currentPassword, newPassword)
+    setUser(res.user)
+  }
+
   async function signOut(): Promise<void> {
     try {
       await authApi.signOut()
     } catch {
-      // Forget the user locally even if the server could not be reached; the cookie expires on its own.
+      // The server ends the session everywhere (token version). Offline, forget the user locally
+      // anyway; the cookie then expires on its own.
     }
     user.value = null
   }
@@ -60,5 +66,17 @@ export const useAuthStore = defineStore('auth', () => {
     pending = Promise.resolve()
   }
 
-  return { user, role, loaded, loadError, isSignedIn, ensureLoaded, signIn, acceptInvite, signOut, setUser }
+  return {
+    user,
+    role,
+    loaded,
+    loadError,
+    isSignedIn,
+    ensureLoaded,
+    signIn,
+    acceptInvite,
+    changePassword,
+    signOut,
+    setUser,
+  }
 })

@@ -1,7 +1,8 @@
 import { defineStore } from 'pinia'
 import { computed, ref, shallowRef, watch } from 'vue'
 import { Notify } from 'quasar'
-import type { VisitDraft } from '../components/visit/visit-draft'
+import { newKey, toIsolationBody, toVisitBody } from '../components/visit/visit-draft'
+import { localStamp } from '../dates'
 import {
   deleteEntries,
   groupEntries,
@@ -10,12 +11,24 @@ import {
   putEntry,
   queueSave,
 } from '../offline/outbox-repo'
-import type { OutboxEntry, VisitEntry } from '../offline/outbox-types'
+import type { OutboxEntry, QueuedSave, VisitEntry } from '../offline/outbox-types'
 import { sendPending } from '../offline/sender'
 import { recordVisitResult } from '../offline/string-cache'
+import type { VisitDraft } from '../offline/visit-record'
 import { useAuthStore } from './auth'
 
 const LOCK_NAME = 'lampwright-outbox'
+
+/** The form's side of a save: its requests, built from what was typed, for the outbox to queue. */
+function toQueuedSave(draft: VisitDraft): QueuedSave {
+  return {
+    groupId: draft.groupId ?? newKey(),
+    isolation: toIsolationBody(draft),
+    // The time of the save is when the work was done, however late the upload.
+    visit: toVisitBody(draft, localStamp()),
+    draft,
+  }
+}
 
 // The offline outbox: every field write is stored on the phone first, then sent in order by one
 // sender per browser (a Web Lock keeps two tabs from sending the same photo twice).
@@ -55,7 +68,7 @@ export const useOutboxStore = defineStore('outbox', () => {
 
   async function save(draft: VisitDraft): Promise<string> {
     if (!auth.user) throw new Error('Sign in before saving.')
-    const groupId = await queueSave(draft, auth.user.id)
+    const groupId = await queueSave(toQueuedSave(draft), auth.user.id)
     await refresh()
     return groupId
   }

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import bcrypt from 'bcryptjs'
 import { makeTestApp, type TestApp } from './helpers'
+import { clearLoopbackSignInCount, createAccount } from './account-helpers'
 import { roleHome, roles } from '../../shared/roles'
 
 let t: TestApp
@@ -62,7 +63,8 @@ describe('sign-in and sessions', () => {
   })
 
   it('rate-limits repeated failed sign-ins with 429 rate_limited', async () => {
-    const email = 'safety@example.org'
+    // Its own account: the counters live in the database and outlast this test (sign-in-limit.test.ts).
+    const { email, password } = await createAccount(t, 'safety')
     let last = 0
     for (let i = 0; i < 11; i++) {
       last = (
@@ -72,8 +74,9 @@ describe('sign-in and sessions', () => {
       ).status
     }
     expect(last).toBe(429)
-    const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email, password: 'lampwright' })
+    const res = await request(t.app).post('/api/v1/auth/sign-in').send({ email, password })
     expect(res.body.error.code).toBe('rate_limited')
+    await clearLoopbackSignInCount(t)
   })
 
   it('stores passwords with bcrypt at cost 10 or more (OWASP Password Storage Cheat Sheet)', async () => {
@@ -112,6 +115,8 @@ describe('inviting users', () => {
       .send({ token, password: 'a-long-enough-password' })
     expect(accepted.status).toBe(200)
     expect(accepted.body.user.role).toBe('crew')
+    const audited = await t.db('auditLog').where({ action: 'accept_invite', entityId: accepted.body.user.id })
+    expect(audited).toHaveLength(1)
     const again = await request(t.app)
       .post('/api/v1/auth/accept-invite')
       .send({ token, password: 'a-long-enough-password' })

@@ -88,3 +88,72 @@ describe('OpenAPI document', () => {
     for (const m of apiRoutes) expect(documented.has(m), `${m} is not in openapi.json`).toBe(true)
   })
 })
+
+describe('mail outbox (demo only, admins only)', () => {
+  const outbox = async (app: TestApp, role: 'crew' | 'admin') =>
+    request(app.app)
+      .get('/api/v1/mail')
+      .set('Authorization', `Bearer ${await app.token(role)}`)
+
+  it('is closed to every role but admin, even in demo mode', async () => {
+    const demo = await makeTestApp({ DEMO_MODE: 'true' })
+    try {
+      const id = (await demo.db('caughtMail').first('id'))?.id ?? 1
+      for (const role of ['crew', 'supervisor', 'manager', 'safety'] as const) {
+        const auth = `Bearer ${await demo.token(role)}`
+        expect((await request(demo.app).get('/api/v1/mail').set('Authorization', auth)).status).toBe(403)
+        const one = await request(demo.app).get(`/api/v1/mail/${id}`).set('Authorization', auth)
+        expect(one.status).toBe(403)
+        expect(one.body.error.code).toBe('forbidden')
+      }
+      expect((await outbox(demo, 'admin')).status).toBe(200)
+    } finally {
+      await demo.close()
+    }
+  })
+
+  it('does not exist outside demo mode, nor when mail goes to a real SMTP server', async () => {
+    const settings: Record<string, string>[] = [
+      { DEMO_MODE: 'false' },
+      { DEMO_MODE: 'true', SMTP_URL: 'smtp://mail.example:587' },
+    ]
+    for (const env of settings) {
+      const app = await makeTestApp(env)
+      try {
+        const res = await outbox(app, 'admin')
+        expect(res.status).toBe(404)
+        expect(res.body.error.code).toBe('not_found')
+        const one = await request(app.app)
+          .get('/api/v1/mail/1')
+          .set('Authorization', `Bearer ${await app.token('admin')}`)
+        expect(one.status).toBe(404)
+        expect((await request(app.app).get('/api/v1/config')).body.mailOutbox).toBe(false)
+      } finally {
+        await app.close()
+      }
+    }
+  })
+})
+
+describe('demo data (demo mode only, read from what the seed stored)', () => {
+  it('shows the demo accounts and drawn streets in demo mode and neither outside it', async () => {
+    const demo = await makeTestApp({ DEMO_MODE: 'true' })
+    const real = await makeTestApp({ DEMO_MODE: 'false' })
+    try {
+      const shown = (await request(demo.app).get('/api/v1/config')).body
+      expect(shown.demoAccounts.map((a: { email: string }) => a.email)).toContain('crew@example.org')
+      expect(shown.demoPassword).toBe('lampwright')
+      const streets = await request(demo.app).get('/api/v1/basemap')
+      expect(streets.status).toBe(200)
+      expect(streets.body.features.length).toBeGreaterThan(0)
+
+      const hidden = (await request(real.app).get('/api/v1/config')).body
+      expect([hidden.demoAccounts, hidden.demoPassword]).toEqual([[], null])
+      const none = await request(real.app).get('/api/v1/basemap')
+      expect([none.status, none.body.error.code]).toEqual([404, 'not_found'])
+    } finally {
+      await demo.close()
+      await real.close()
+    }
+  })
+})

@@ -1,6 +1,6 @@
-import dayjs from 'dayjs'
 import { RCD_MAX_MS, insulationMinimumMegohms, judgeReadings } from '../../../shared/test-limits'
 import type { CertificateKind, CertificateReadings, CertificateRecord, DueFilter } from '../../api/safety'
+import { addDays, daysBetween } from '../../dates'
 
 export type Result = CertificateRecord['result']
 export type SubjectType = CertificateRecord['subjectType']
@@ -140,20 +140,12 @@ export function readingsSummary(readings: CertificateRecord['readings']): string
   return parts.filter(Boolean).join(' · ')
 }
 
-export function day(iso: string | null): string {
-  return iso ? dayjs(iso).format('D MMM YYYY') : '—'
-}
-
-export function today(): string {
-  return dayjs().format('YYYY-MM-DD')
-}
-
 /** The next due date at the same interval as the previous certificate, if it had one. */
 export function sameIntervalDue(
   previous: Pick<CertificateRecord, 'doneOn' | 'nextDue'>,
   doneOn: string,
 ): string {
   if (!previous.nextDue) return ''
-  const days = dayjs(previous.nextDue).diff(dayjs(previous.doneOn), 'day')
-  return days > 0 ? dayjs(doneOn).add(days, 'day').format('YYYY-MM-DD') : ''
+  const days = daysBetween(previous.doneOn, previous.nextDue)
+  return days > 0 ? addDays(doneOn, days) : ''
 }

@@ -1,5 +1,6 @@
 import { computed, ref } from 'vue'
 import { isApiError } from '../../api/http'
+import { useDialogSubmit } from '../../composables/use-dialog-submit'
 import { fieldProblems } from '../../api/public-reports'
 import {
   certificateKindLabel,
@@ -15,10 +16,10 @@ import {
   parseReadings,
   previewResult,
   sameIntervalDue,
-  today,
   type ReadingKey,
   type Result,
 } from './certificate-format'
+import { today } from '../../dates'
 
 /** The "Record new test" form: starts from a certificate row and saves a new test on its subject. */
 export function useRecordTest(base: () => CertificateRecord | null) {
@@ -30,8 +31,7 @@ export function useRecordTest(base: () => CertificateRecord | null) {
   const reference = ref('')
   const inspector = ref('')
   const notes = ref('')
-  const busy = ref(false)
-  const errorText = ref<string | null>(null)
+  const { busy, errorText, submit, clearError } = useDialogSubmit(null, 'The test was not saved. Try again.')
   const problems = ref<Record<string, string>>({})
 
   const kindOptions = computed(() => {
@@ -70,7 +70,7 @@ export function useRecordTest(base: () => CertificateRecord | null) {
     reference.value = ''
     inspector.value = row.inspector ?? ''
     notes.value = ''
-    errorText.value = null
+    clearError()
     problems.value = {}
   }
 
@@ -86,32 +86,30 @@ export function useRecordTest(base: () => CertificateRecord | null) {
       return null
     }
     const readings = parsed.value.readings
-    busy.value = true
-    errorText.value = null
-    try {
-      return await certificatesApi.record({
-        kind: kind.value,
-        subjectType: row.subjectType,
-        subjectId: row.subjectId,
-        doneOn: doneOn.value,
-        nextDue: nextDue.value || undefined,
-        readings: Object.keys(readings).length ? readings : undefined,
-        // Judged kinds get their result from the readings on the server, as in the preview.
-        result: judged.value ? undefined : (result.value ?? undefined),
-        reference: reference.value.trim() || undefined,
-        inspector: inspector.value.trim() || undefined,
-        notes: notes.value.trim() || undefined,
-      })
-    } catch (err) {
-      if (isApiError(err, 'validation_failed')) problems.value = fieldProblems(err.details)
-      const detail = Object.values(problems.value).join(' ')
-      errorText.value = isApiError(err)
-        ? `${err.message} ${detail}`.trim()
-        : 'The test was not saved. Try again.'
-      return null
-    } finally {
-      busy.value = false
-    }
+    let created: CertificateCreated | null = null
+    await submit(
+      async () => {
+        created = await certificatesApi.record({
+          kind: kind.value,
+          subjectType: row.subjectType,
+          subjectId: row.subjectId,
+          doneOn: doneOn.value,
+          nextDue: nextDue.value || undefined,
+          readings: Object.keys(readings).length ? readings : undefined,
+          // Judged kinds get their result from the readings on the server, as in the preview.
+          result: judged.value ? undefined : (result.value ?? undefined),
+          reference: reference.value.trim() || undefined,
+          inspector: inspector.value.trim() || undefined,
+          notes: notes.value.trim() || undefined,
+        })
+      },
+      (err) => {
+        if (!isApiError(err)) return undefined
+        if (err.code === 'validation_failed') problems.value = fieldProblems(err.details)
+        return `${err.message} ${Object.values(problems.value).join(' ')}`.trim()
+      },
+    )
+    return created
   }
 
   return {

@@ -1,11 +1,7 @@
-export const STRING_STATES = ['lit', 'watch', 'replace', 'dark', 'safe'] as const
-export type StringState = (typeof STRING_STATES)[number]
-
-// One vocabulary across API, UI, e-mails and docs (product brief, "Words").
-export const STATE_WORDS: Record<StringState, string> = {
-  lit: 'Lit',
-  watch: 'Watch',
-  replace: 'Replace now',
-  dark: 'Dark',
-  safe: 'Made safe',
-}
+// The string states and their words are the API's own (shared/schemas/string-states.ts); the client
+// only names them for its components.
+export {
+  statuses as STRING_STATES,
+  statusLabel as STATE_WORDS,
+  type StringStatus as StringState,
+} from '../../../shared/schemas/string-states'

@@ -1,5 +1,5 @@
-import dayjs from 'dayjs'
 import type { EnergyClient, EnergyLine } from '../../api/energy'
+import { formatDate } from '../../dates'
 
 const gb = (digits: number) =>
   new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })
@@ -20,7 +20,6 @@ export function pounds(n: number | null, exact = false): string {
 }
 const price = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 4 })
 export const tariff = (perKwh: number) => `£${price.format(perKwh)} per kWh`
-export const seasonDay = (iso: string) => dayjs(iso).format('D MMM YYYY')
 export const hours = (h: number) => `${Number.isInteger(h) ? h : one.format(h)} h`
 
 const minutes = (hhmm: string) => {
@@ -30,10 +29,9 @@ const minutes = (hhmm: string) => {
 
 /** Whether the client's lights burn at `now`: inside the season and between switch-on and switch-off. */
 export function isLitAt(c: EnergyClient, at: Date = new Date()): boolean {
-  const now = dayjs(at)
-  const today = now.format('YYYY-MM-DD')
+  const today = formatDate(at, 'isoDate')
   if (!c.seasonStart || !c.seasonEnd || today < c.seasonStart || today >= c.seasonEnd) return false
-  const t = now.hour() * 60 + now.minute()
+  const t = at.getHours() * 60 + at.getMinutes()
   const on = minutes(c.switchOn)
   const off = minutes(c.switchOff)
   // A schedule may run past midnight (e.g. 16:00–01:00).

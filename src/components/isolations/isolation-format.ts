@@ -1,4 +1,3 @@
-import dayjs from 'dayjs'
 import {
   isolateSteps,
   isolationSteps,
@@ -68,18 +67,6 @@ export function sortedFindings(record: Pick<IsolationRecord, 'findings'>): Isola
 
 export function seriousCount(record: Pick<IsolationRecord, 'findings'>): number {
   return record.findings.filter((f) => f.severity === 'serious').length
-}
-
-export function time(iso: string): string {
-  return dayjs(iso).format('HH:mm:ss')
-}
-
-export function clock(iso: string): string {
-  return dayjs(iso).format('HH:mm')
-}
-
-export function dateTime(iso: string | null): string {
-  return iso ? dayjs(iso).format('ddd D MMM YYYY, HH:mm') : ''
 }
 
 /** A rejection must say why, so the crew can be briefed; an approval may carry a note. */

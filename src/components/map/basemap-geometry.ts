@@ -1,4 +1,4 @@
-import type { BasemapFeature } from '../../api/strings'
+import type { BasemapFeature } from '../../api/basemap'
 
 export type LngLat = [number, number]
 export type LatLngPair = [number, number]

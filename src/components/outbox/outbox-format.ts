@@ -1,7 +1,7 @@
 // Words for outbox entries: what each is, and where it stands.
-import dayjs from 'dayjs'
 import { isolationSteps } from '../../../shared/schemas/visits'
 import type { OutboxEntry } from '../../offline/outbox-types'
+import { formatDate, isToday } from '../../dates'
 
 export const KIND_WORD: Record<OutboxEntry['kind'], string> = {
   isolation: 'Isolation',
@@ -25,7 +25,7 @@ export function entrySummary(e: OutboxEntry): string {
 }
 
 export function entryStatus(e: OutboxEntry, now = Date.now()): string {
-  if (e.state === 'sent') return `Sent ${dayjs(e.sentAt).format('HH:mm')}`
+  if (e.state === 'sent') return `Sent ${formatDate(e.sentAt, 'time')}`
   if (e.state === 'failed') return 'Refused by the server'
   if (e.attempts === 0) return 'Waiting to send'
   const wait = Math.ceil((e.nextAttemptAt - now) / 1000)
@@ -36,8 +36,7 @@ export function entryStatus(e: OutboxEntry, now = Date.now()): string {
 }
 
 export function madeAt(e: OutboxEntry): string {
-  const t = dayjs(e.createdAt)
-  return t.isSame(dayjs(), 'day') ? `Saved ${t.format('HH:mm')}` : `Saved ${t.format('D MMM HH:mm')}`
+  return `Saved ${formatDate(e.createdAt, isToday(e.createdAt) ? 'time' : 'dayMonthTime')}`
 }
 
 export function waitingHeadline(visits: number, others: number): string {

@@ -1,6 +1,6 @@
-import dayjs from 'dayjs'
 import { queueKindLabel, type OverdueReport } from '../../api/overdue'
 import { saveCsv, type Cell } from '../common/csv'
+import { formatDate } from '../../dates'
 
 const round = (h: number) => Math.round(h * 10) / 10
 
@@ -22,7 +22,7 @@ const HEADER = [
 
 /** Every overdue and due-soon item, one line each, with its client's contract. */
 export function overdueRows(report: OverdueReport): Cell[][] {
-  const when = (iso: string) => dayjs(iso).format('YYYY-MM-DD HH:mm')
+  const when = (iso: string) => formatDate(iso, 'csv')
   const rows: Cell[][] = [HEADER]
   for (const client of report.clients) {
     for (const item of client.items) {
@@ -49,8 +49,5 @@ export function overdueRows(report: OverdueReport): Cell[][] {
 
 /** Saves the report as a dated file. */
 export function downloadCsv(report: OverdueReport): void {
-  saveCsv(
-    `lampwright-overdue-${dayjs(report.generatedAt).format('YYYY-MM-DD-HHmm')}.csv`,
-    overdueRows(report),
-  )
+  saveCsv(`lampwright-overdue-${formatDate(report.generatedAt, 'file')}.csv`, overdueRows(report))
 }

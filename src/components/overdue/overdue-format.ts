@@ -1,4 +1,3 @@
-import dayjs from 'dayjs'
 import type { OverdueItem } from '../../api/overdue'
 
 function hours(h: number): string {
@@ -11,8 +10,4 @@ function hours(h: number): string {
 /** "Overdue by 3.5 h" or "5 h left": said in words, never by colour alone. */
 export function lateText(item: Pick<OverdueItem, 'hoursLeft' | 'overdue'>): string {
   return item.overdue ? `Overdue by ${hours(item.hoursLeft)}` : `${hours(item.hoursLeft)} left`
-}
-
-export function dateTime(iso: string): string {
-  return dayjs(iso).format('ddd D MMM, HH:mm')
 }

@@ -1,4 +1,3 @@
-import dayjs from 'dayjs'
 import type { QueueItem, QueueKind, QueueState } from '../../api/queue'
 
 export interface QueueFilterModel {
@@ -14,7 +13,7 @@ export interface FilterOption {
   clientId?: number
 }
 
-// Score parts and their ceilings as the server defines them (server/services/queue-score.ts):
+// Score parts and their ceilings as the server defines them (server/services/queue/score.ts):
 // risk 0–50, importance 0–25, clock 0–25, so a full bar is a score of 100.
 export const SCORE_PARTS = [
   { key: 'risk', label: 'Risk', max: 50 },
@@ -45,10 +44,6 @@ function hours(h: number): string {
 /** "12 h left" or "overdue by 3.5 h": said in words, never by colour alone. */
 export function dueText(item: Pick<QueueItem, 'hoursLeft' | 'overdue'>): string {
   return item.overdue ? `overdue by ${hours(item.hoursLeft)} h` : `${hours(item.hoursLeft)} h left`
-}
-
-export function dateTime(iso: string): string {
-  return dayjs(iso).format('ddd D MMM, HH:mm')
 }
 
 export function score(n: number): string {

@@ -1,14 +1,9 @@
-import dayjs from 'dayjs'
 import { STATE_WORDS } from '../common/string-state'
 import type { RegisterRow } from '../../api/register'
 import type { CsvRow } from '../common/csv'
+import { formatDate } from '../../dates'
 
-/** A calendar day, or a dash when the register has none. */
-export function day(iso: string | null): string {
-  return iso ? dayjs(iso).format('D MMM YYYY') : '—'
-}
-
-const isoDay = (iso: string | null) => (iso ? dayjs(iso).format('YYYY-MM-DD') : null)
+const isoDay = (iso: string | null) => formatDate(iso, 'isoDate') || null
 
 const HEADER = [
   'Tag',
@@ -46,7 +41,7 @@ export function registerRows(items: readonly RegisterRow[]): CsvRow[] {
       r.circuitRef,
       r.structureRef,
       isoDay(r.installedOn),
-      r.lastVisitAt ? dayjs(r.lastVisitAt).format('YYYY-MM-DD HH:mm') : null,
+      formatDate(r.lastVisitAt, 'csv') || null,
       isoDay(r.forecastDarkAt),
       r.lat,
       r.lng,

@@ -1,4 +1,3 @@
-import dayjs from 'dayjs'
 import { LocalStorage } from 'quasar'
 
 /** How references look (shared/schemas/reports.ts refParam): LW- and five letters or digits. */
@@ -16,10 +15,6 @@ export interface Place {
   lat: number
   lng: number
   accuracy: number | null
-}
-
-export function dateTime(iso: string): string {
-  return dayjs(iso).format('D MMM YYYY, HH:mm')
 }
 
 // References this device sent, so someone checking later need not have written theirs down.

@@ -1,31 +1,4 @@
-// Numbers and dates as the string page shows them. Dates are the server's ISO dates: calendar
-// days (YYYY-MM-DD) or instants, shown in the device's own locale.
-
-export function dateText(iso: string | null | undefined): string {
-  if (!iso) return '—'
-  const [y, m, d] = iso.slice(0, 10).split('-').map(Number)
-  return new Date(y, m - 1, d).toLocaleDateString(undefined, {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-  })
-}
-
-export function dateTimeText(iso: string): string {
-  return new Date(iso).toLocaleString(undefined, {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    hour: '2-digit',
-    minute: '2-digit',
-  })
-}
-
-/** Today as YYYY-MM-DD in the device's time zone: a certificate is due on a local calendar day. */
-export function todayIso(now = new Date()): string {
-  const p = (n: number) => String(n).padStart(2, '0')
-  return `${now.getFullYear()}-${p(now.getMonth() + 1)}-${p(now.getDate())}`
-}
+// Numbers as the string page shows them; its dates go through src/dates.ts.
 
 export function hoursText(h: number | null | undefined): string {
   if (h === null || h === undefined || !Number.isFinite(h)) return '—'

@@ -4,49 +4,13 @@ import {
   isolateSteps,
   restoreSteps,
   type IsolationBody,
-  type IsolationStep,
   type VisitBody,
 } from '../../../shared/schemas/visits'
+import { NO_ISOLATION_MESSAGE, NO_ISOLATION_MIN, countErrors, isRelamping } from '../../../shared/visit-rules'
 
-export interface StepStamp {
-  /** Device time with its offset, stamped when the button was tapped. */
-  doneAt: string
-  /** RCD trip time in ms, for the RCD test. */
-  value?: string
-}
-
-export interface DraftPhoto {
-  id: string
-  name: string
-  blob: Blob
-}
-
-export interface VisitDraft {
-  stringId: number
-  assetTag: string
-  /** Idempotency keys, made when the form opens, so a re-save after a refusal is still the same visit. */
-  visitKey: string
-  isolationKey: string
-  /** Set when the form reopens a refused outbox entry. */
-  groupId: string | null
-  failedFound: number
-  replaced: number
-  fuseReplaced: boolean
-  darkOnArrival: boolean
-  leaveMadeSafe: boolean
-  /** As typed, so "12," or an empty field survive a reload untouched. */
-  readings: { supplyVolts: string; amps: string; coldOhms: string }
-  notes: string
-  isolationMode: 'steps' | 'none'
-  noIsolationReason: string
-  lockId: string
-  testerId: string
-  steps: Partial<Record<IsolationStep, StepStamp>>
-  photos: DraftPhoto[]
-  startedAt: string
-}
-
-export const NO_ISOLATION_MIN = 10
+// The draft's shape belongs to the phone's store (offline/), which keeps it in the outbox.
+import type { DraftPhoto, StepStamp, VisitDraft } from '../../offline/visit-record'
+export type { DraftPhoto, StepStamp, VisitDraft }
 
 /** A v4 UUID. randomUUID exists only in secure contexts (https, localhost); getRandomValues everywhere. */
 export function newKey(): string {
@@ -82,23 +46,9 @@ export function newDraft(stringId: number, assetTag: string): VisitDraft {
   }
 }
 
-/** A copy without Vue's proxies: IndexedDB can store plain objects and Blobs, not proxies. */
-export function plainDraft(draft: VisitDraft): VisitDraft {
-  return {
-    ...draft,
-    readings: { ...draft.readings },
-    steps: Object.fromEntries(Object.entries(draft.steps).map(([k, v]) => [k, { ...v }])),
-    photos: draft.photos.map((p) => ({ id: p.id, name: p.name, blob: p.blob })),
-  }
-}
-
 /** Local time with its UTC offset, as the isolation record wants it. */
 export function stamp(): string {
   return dayjs().format('YYYY-MM-DDTHH:mm:ssZ')
-}
-
-export function isRelamping(d: Pick<VisitDraft, 'replaced' | 'fuseReplaced'>): boolean {
-  return d.replaced > 0 || d.fuseReplaced
 }
 
 export function isolatedBeforeWork(d: VisitDraft): boolean {
@@ -107,11 +57,6 @@ export function isolatedBeforeWork(d: VisitDraft): boolean {
 
 export function hasAnyStep(d: VisitDraft): boolean {
   return Object.keys(d.steps).length > 0
-}
-
-/** The next step the checklist lets the person tap; steps unlock one after another. */
-export function nextStep(d: VisitDraft): IsolationStep | null {
-  return [...isolateSteps, ...restoreSteps].find((s) => !d.steps[s]) ?? null
 }
 
 /** Turns a typed number ("230", "0,48") into a number, or undefined when blank or unreadable. */
@@ -167,19 +112,14 @@ export type DraftErrors = Partial<
   Record<'failedFound' | 'replaced' | 'isolation' | 'noIsolationReason' | 'readings', string>
 >
 
-/** The checks the server makes too, made here first so nothing doomed is queued. */
+/** The checks the server makes too (shared/visit-rules.ts), made here first so nothing doomed is queued. */
 export function checkDraft(d: VisitDraft, lampsOutBefore: number, capacity: number): DraftErrors {
-  const errors: DraftErrors = {}
-  const outNow = lampsOutBefore + d.failedFound
-  if (outNow > capacity)
-    errors.failedFound = `This string has ${capacity} lamps; ${lampsOutBefore} are already recorded out.`
-  if (d.replaced > outNow)
-    errors.replaced = `Only ${outNow} lamps are out (${lampsOutBefore} recorded + ${d.failedFound} found).`
+  const errors: DraftErrors = countErrors(lampsOutBefore, d, capacity)
   if (isRelamping(d)) {
     if (d.isolationMode === 'steps' && !isolatedBeforeWork(d))
       errors.isolation = 'Finish the six steps before work, or choose "No isolation needed" and say why.'
     if (d.isolationMode === 'none' && d.noIsolationReason.trim().length < NO_ISOLATION_MIN)
-      errors.noIsolationReason = `Say why in at least ${NO_ISOLATION_MIN} characters.`
+      errors.noIsolationReason = NO_ISOLATION_MESSAGE
   }
   const bad = Object.entries(d.readings).filter(([, t]) => t.trim() && parseReading(t) === undefined)
   if (bad.length) errors.readings = 'Readings must be numbers.'

@@ -11,8 +11,6 @@ import {
   type TypeSpec,
 } from '../../../shared/string-status'
 
-export { applyVisit, type VisitCounts } from '../../../shared/string-status'
-
 export interface StatePreview {
   status: StringStatus
   lampsOut: number

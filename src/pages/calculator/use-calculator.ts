@@ -9,7 +9,7 @@ import {
   type CustomSpec,
   type LampPreset,
 } from '../../components/calculator/presets'
-import { todayIso } from '../../components/string/string-format'
+import { today } from '../../dates'
 
 // Enough simulated runs for a stable summary that still finishes within a frame on a phone.
 const TRIALS = 1000
@@ -86,7 +86,7 @@ export function useCalculator() {
         ratedLifeHours: p.ratedLifeHours,
         weibullShape: p.weibullShape,
         shuntFailProbability: p.shuntFailProbability,
-        startDate: todayIso(),
+        startDate: today(),
         trials: TRIALS,
       }),
     }

@@ -1,6 +1,6 @@
 import { computed, shallowRef } from 'vue'
 import { ApiError } from '../../api/http'
-import { stringsApi, type Basemap } from '../../api/strings'
+import { basemapApi, type Basemap } from '../../api/basemap'
 import { featureBounds } from '../../components/map/basemap-geometry'
 
 /** The demo town's drawn streets and the bounds the map first opens on. */
@@ -12,7 +12,7 @@ export function useBasemap() {
   async function loadBasemap(): Promise<void> {
     basemapError.value = null
     try {
-      basemap.value = await stringsApi.basemap()
+      basemap.value = await basemapApi.get()
     } catch (err) {
       basemapError.value = err instanceof ApiError ? err : new ApiError(0, 'client_error', String(err))
     }

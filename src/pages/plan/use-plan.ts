@@ -1,5 +1,4 @@
 import { computed, reactive, ref, shallowRef, watch } from 'vue'
-import dayjs from 'dayjs'
 import { useQuasar } from 'quasar'
 import { useRoute } from 'vue-router'
 import { ApiError } from '../../api/http'
@@ -17,6 +16,7 @@ import {
 import { DEFAULT_TOP_N, idsFromQuery, topItems } from '../../components/plan/plan-items'
 import { retime, type TravelSettings } from '../../components/plan/run-timing'
 import { DEFAULT_DETOUR_FACTOR, DEFAULT_SPEED_KMH } from '../../../shared/routing/plan-model'
+import { addDays, formatDate, today } from '../../dates'
 
 type Source = 'none' | 'proposal' | 'published'
 
@@ -24,7 +24,7 @@ export function usePlan() {
   const $q = useQuasar()
   const route = useRoute()
 
-  const date = ref(dayjs().add(1, 'day').format('YYYY-MM-DD'))
+  const date = ref(addDays(today(), 1))
   const settings = reactive<TravelSettings>({
     speedKmh: DEFAULT_SPEED_KMH,
     detourFactor: DEFAULT_DETOUR_FACTOR,
@@ -143,7 +143,7 @@ export function usePlan() {
   function publish(): void {
     const stops = runs.value.reduce((n, r) => n + r.stops.length, 0)
     $q.dialog({
-      title: `Publish ${runs.value.length} run${runs.value.length === 1 ? '' : 's'} for ${dayjs(date.value).format('ddd D MMM')}?`,
+      title: `Publish ${runs.value.length} run${runs.value.length === 1 ? '' : 's'} for ${formatDate(date.value, 'weekday')}?`,
       message:
         `${stops} stops in the order shown. Every crew member gets the run by e-mail; ` +
         'a crew whose run for this date was already published gets a “Changed” e-mail.',

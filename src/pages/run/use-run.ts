@@ -1,12 +1,12 @@
 // Tonight's run (or another day's): from the server when it answers, else the copy on the phone.
 // Online, every string on the run is saved to the phone so the visit form works without signal.
 import { ref, shallowRef } from 'vue'
-import dayjs from 'dayjs'
 import { ApiError } from '../../api/http'
-import { runsMineApi, type MyRun } from '../../api/runs-mine'
+import { runsApi, type MyRun } from '../../api/runs'
 import { cachedRun, saveRun } from '../../offline/run-cache'
 import { isUnreachable, prefetchStrings } from '../../offline/string-cache'
 import { useAuthStore } from '../../stores/auth'
+import { today } from '../../dates'
 
 export function useRun() {
   const auth = useAuthStore()
@@ -24,8 +24,7 @@ export function useRun() {
     if (date.value) return cachedRun(userId, date.value)
     // "Tonight" offline: the server's day is UTC, the phone's may differ around midnight.
     return (
-      (await cachedRun(userId, dayjs().format('YYYY-MM-DD'))) ??
-      (await cachedRun(userId, new Date().toISOString().slice(0, 10)))
+      (await cachedRun(userId, today())) ?? (await cachedRun(userId, new Date().toISOString().slice(0, 10)))
     )
   }
 
@@ -36,7 +35,7 @@ export function useRun() {
     loading.value = true
     error.value = null
     try {
-      const run = await runsMineApi.get(date.value ?? undefined)
+      const run = await runsApi.mine(date.value ?? undefined)
       if (mine !== generation) return
       data.value = run
       if (navigator.onLine) {

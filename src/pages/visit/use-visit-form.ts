@@ -2,9 +2,10 @@
 // IndexedDB as it is typed, the engine preview, and saving through the outbox.
 import { computed, ref, shallowRef, watch } from 'vue'
 import dayjs from 'dayjs'
-import { shuntedLampCount, type Condition } from '../../../shared/string-status'
+import { conditionOf, shuntedLampCount, type Condition } from '../../../shared/string-status'
+import { applyVisit } from '../../../shared/visit-rules'
 import { ApiError } from '../../api/http'
-import type { StringDetail } from '../../api/visits'
+import type { StringDetail } from '../../api/strings'
 import {
   checkDraft,
   newDraft,
@@ -12,7 +13,7 @@ import {
   type DraftErrors,
   type VisitDraft,
 } from '../../components/visit/visit-draft'
-import { applyVisit, previewForecast, previewState } from '../../components/visit/visit-preview'
+import { previewForecast, previewState } from '../../components/visit/visit-preview'
 import { clearDraft, draftFromOutbox, saveDraft, unsentDraft } from '../../offline/draft-store'
 import type { EntryError, VisitEntry } from '../../offline/outbox-types'
 import { loadString } from '../../offline/string-cache'
@@ -78,8 +79,7 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
   const base = computed<Condition | null>(() => {
     const d = detail.value
     if (!d) return null
-    const recorded = { lampsOut: d.lampsOut, fuseFailed: d.fuseFailed, dark: d.dark, isolated: d.isolated }
-    return pendingVisits.value.reduce((c, v) => applyVisit(c, v.body), recorded)
+    return pendingVisits.value.reduce((c, v) => applyVisit(c, v.body), conditionOf(d))
   })
   const capacity = computed(() => (detail.value ? shuntedLampCount(detail.value.type) : 0))
   const hasFuseLamp = computed(() => !!detail.value?.type.classes.some((k) => !k.shunted))

@@ -58,7 +58,7 @@ describe('assess: replace now and dark strings', () => {
       '1 lamp shorted: the other 19 run at 105 % of rating; expected life about half of normal.',
     )
     expect(r.replaceNow).toBe(true)
-    expect(r.state).toBe('replace-now')
+    expect(r.state).toBe('replace')
   })
 
   it('keeps a string below the limit on Watch and a full string at rating Lit', () => {

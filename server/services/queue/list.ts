@@ -1,14 +1,14 @@
-import type { Db } from '../db'
-import { badRequest, notFound } from '../errors'
-import type { QueueItem } from '../../shared/schemas/queue'
-import { scoreItem } from './queue-score'
+// The queue as supervisors see it: waiting work with its place, client, report and score.
+import type { QueueItem, QueueKind } from '../../../shared/schemas/queue'
+import { scoreItem } from './score'
+import type { Conn } from './items'
 
 const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
 
 export interface QueueFilter {
   clientId?: number
   siteId?: number
-  kind?: QueueItem['kind']
+  kind?: QueueKind
   crewId?: number
   /** 'active' is open or snoozed: work still waiting. */
   state: 'open' | 'snoozed' | 'closed' | 'active' | 'all'
@@ -17,9 +17,10 @@ export interface QueueFilter {
 
 const STATES = { active: ['open', 'snoozed'], all: ['open', 'snoozed', 'closed'] } as const
 
-export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {
+export async function listQueue(db: Conn, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {
   const q = db('queueItems as q')
     .leftJoin('strings as s', 's.id', 'q.stringId')
+    .leftJoin('stringTypes as st', 'st.id', 's.typeId')
     .leftJoin('sites as si', 'si.id', db.raw('coalesce(q.site_id, s.site_id)'))
     .leftJoin('clients as c', 'c.id', 'q.clientId')
     .leftJoin('reports as r', 'r.id', 'q.reportId')
@@ -30,6 +31,7 @@ export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promi
       's.status as stringStatus',
       's.lampsOut',
       's.maxRatio',
+      'st.replaceAtRatio',
       's.lat as sLat',
       's.lng as sLng',
       'si.id as siteId2',
@@ -88,6 +90,7 @@ export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promi
       why,
       snoozedUntil: iso(r.snoozedUntil),
       snoozeReason: r.snoozeReason ?? null,
+      closeReason: r.closeReason ?? null,
       mergedCount: Number(r.mergedCount ?? 0),
       string: r.stringId
         ? {
@@ -109,42 +112,4 @@ export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promi
     } satisfies QueueItem
   })
   return items.sort((a, b) => b.score - a.score)
-}
-
-async function openOrSnoozed(db: Db, id: number) {
-  const item = await db('queueItems').where({ id }).first('id', 'state')
-  if (!item) throw notFound('Queue item')
-  if (!['open', 'snoozed'].includes(item.state))
-    throw badRequest('item_closed', 'This item is already closed or merged.')
-  return item
-}
-
-export async function snoozeItem(db: Db, id: number, until: Date, reason: string, now = new Date()) {
-  await openOrSnoozed(db, id)
-  if (until <= now)
-    throw badRequest('validation_failed', 'Snooze until a time in the future.', {
-      fields: [{ path: 'body.until', message: 'Must be in the future.' }],
-    })
-  await db('queueItems').where({ id }).update({ state: 'snoozed', snoozedUntil: until, snoozeReason: reason })
-}
-
-export async function mergeItems(db: Db, into: number, ids: number[]) {
-  if (ids.includes(into))
-    throw badRequest('validation_failed', 'An item cannot be merged into itself.', {
-      fields: [{ path: 'body.ids', message: 'Remove the target.' }],
-    })
-  await db.transaction(async (trx) => {
-    await openOrSnoozed(trx as unknown as Db, into)
-    for (const id of ids) await openOrSnoozed(trx as unknown as Db, id)
-    await trx('queueItems')
-      .whereIn('id', ids)
-      .update({ state: 'merged', mergedIntoId: into, openKey: null, closedAt: new Date() })
-  })
-}
-
-export async function closeItem(db: Db, id: number, reason: string) {
-  await openOrSnoozed(db, id)
-  await db('queueItems')
-    .where({ id })
-    .update({ state: 'closed', openKey: null, closedAt: new Date(), snoozeReason: reason })
 }

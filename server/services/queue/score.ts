@@ -3,6 +3,7 @@
 //   importance (0–25): the site's importance to the client (1–5);
 //   clock (0–25): how much of the contract response time is used up.
 // The weights are our own judgement (common practice, no source).
+import { DEFAULT_REPLACE_AT_RATIO } from '../../../shared/engine/defaults'
 
 interface Row {
   kind: string
@@ -10,6 +11,8 @@ interface Row {
   dueBy: Date | string
   openedAt: Date | string
   maxRatio?: number | null
+  /** The string type's own replace-now limit (lamp voltage over rated). */
+  replaceAtRatio?: number | null
   hazard?: number | boolean | null
   importance?: number | null
   summary: string
@@ -29,9 +32,11 @@ export function scoreItem(r: Row, now: Date) {
       why.push('String is dark')
       break
     case 'replace_now': {
-      const over = clamp(((r.maxRatio ?? 1.05) - 1.05) / 0.1)
-      risk = 30 + 15 * over
-      why.push(`Lamps at ${Math.round((r.maxRatio ?? 1.05) * 100)} % of rated voltage`)
+      // Past the type's own limit, risk grows until the lamps run 10 points of rating over it.
+      const limit = r.replaceAtRatio ?? DEFAULT_REPLACE_AT_RATIO
+      const ratio = r.maxRatio ?? limit
+      risk = 30 + 15 * clamp((ratio - limit) / 0.1)
+      why.push(`Lamps at ${Math.round(ratio * 100)} % of rated voltage`)
       break
     }
     case 'forecast_dark':

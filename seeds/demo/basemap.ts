@@ -1,7 +1,7 @@
-// The demo town's own basemap as GeoJSON: an invented town has no real map tiles, so the client
-// draws these streets, squares, gardens and the river as vector layers (TILE_URL replaces it).
-import { river, streets } from '../../seeds/demo/town'
-import { toLatLng } from '../../seeds/demo/geo'
+// The demo town's own basemap as GeoJSON: an invented town has no real map tiles, so the seed stores
+// these streets, squares, gardens and the river for the client to draw (TILE_URL replaces it).
+import { river, streets } from './town'
+import { toLatLng } from './geo'
 
 const ll = ([x, y]: [number, number]) => {
   const p = toLatLng(x, y)

@@ -1,0 +1,111 @@
+// Opening and closing queue items. One item is open per kind and subject (its open_key); every close
+// goes through closeItems, which also moves a public report out of `received`, so no refresh reopens it.
+import type { Knex } from 'knex'
+import type { Db } from '../../db'
+import type { QueueKind } from '../../../shared/schemas/queue'
+import { reportOpenStates, type ReportState } from '../../../shared/schemas/reports'
+
+/** A connection or a transaction: callers commit the queue with the change that caused it. */
+export type Conn = Db | Knex.Transaction
+
+/** Work still waiting: open, or snoozed until a time. */
+export const ACTIVE = ['open', 'snoozed'] as const
+
+export interface OpenItem {
+  kind: QueueKind
+  subject: string
+  severity: 'emergency' | 'standard'
+  summary: string
+  stringId?: number | null
+  reportId?: number | null
+  certificateId?: number | null
+  siteId?: number | null
+  clientId?: number | null
+  openedAt?: Date
+  dueBy?: Date
+}
+
+const isDuplicate = (err: unknown) => (err as { code?: string }).code === 'ER_DUP_ENTRY'
+
+/** Opens a queue item unless one is already open for the same kind and subject; returns its id. */
+export async function openItem(db: Conn, item: OpenItem, now = new Date()): Promise<number> {
+  const openKey = `${item.kind}:${item.subject}`
+  const existing = await db('queueItems').where({ openKey }).first('id')
+  if (existing) return existing.id
+  let dueBy = item.dueBy
+  if (!dueBy && item.clientId) {
+    const c = await db('clients')
+      .where({ id: item.clientId })
+      .first('responseEmergencyHours', 'responseStandardHours')
+    const hours = item.severity === 'emergency' ? c.responseEmergencyHours : c.responseStandardHours
+    dueBy = new Date((item.openedAt ?? now).getTime() + hours * 3_600_000)
+  }
+  try {
+    const [id] = await db('queueItems').insert({
+      kind: item.kind,
+      openKey,
+      stringId: item.stringId ?? null,
+      reportId: item.reportId ?? null,
+      certificateId: item.certificateId ?? null,
+      siteId: item.siteId ?? null,
+      clientId: item.clientId ?? null,
+      severity: item.severity,
+      state: 'open',
+      openedAt: item.openedAt ?? now,
+      dueBy: dueBy ?? new Date(now.getTime() + 36 * 3_600_000),
+      summary: item.summary.slice(0, 255),
+    })
+    return id
+  } catch (err) {
+    // Opened at the same moment elsewhere (the job and a new report): that item is the one.
+    if (!isDuplicate(err)) throw err
+    return (await db('queueItems').where({ openKey }).first('id')).id
+  }
+}
+
+export interface CloseHow {
+  now?: Date
+  /** The visit that fixed it. */
+  visitId?: number | null
+  /** A supervisor's reason for closing without a visit. */
+  reason?: string | null
+  /** What a public report's status page says once its item is closed. */
+  reportState?: ReportState
+}
+
+/** Closes the open or snoozed items among `ids`; their public reports leave `received` in the same commit. */
+export async function closeItems(db: Conn, ids: number[], how: CloseHow = {}): Promise<number[]> {
+  if (!ids.length) return []
+  const now = how.now ?? new Date()
+  const rows = await db('queueItems').whereIn('id', ids).whereIn('state', ACTIVE).select('id')
+  const closing = rows.map((r) => r.id as number)
+  if (!closing.length) return []
+  await db('queueItems')
+    .whereIn('id', closing)
+    .update({
+      state: 'closed',
+      openKey: null,
+      closedAt: now,
+      closedByVisitId: how.visitId ?? null,
+      closeReason: how.reason ?? null,
+    })
+  await settleReports(db, closing, how.reportState ?? 'fixed', now)
+  return closing
+}
+
+/**
+ * Moves the public reports behind these items out of `received` / `in_hand`: the queue opens items only
+ * for reports in those states, so a settled report stays settled. Reports already moved keep their state.
+ */
+export async function settleReports(db: Conn, itemIds: number[], state: ReportState, now = new Date()) {
+  if (!itemIds.length) return
+  const reportIds = db('queueItems')
+    .whereIn('id', itemIds)
+    .where('kind', 'public_report')
+    .whereNotNull('reportId')
+    .select('reportId')
+  await db('reports')
+    .whereIn('id', reportIds)
+    .whereIn('state', reportOpenStates)
+    .update({ state, updatedAt: now })
+}

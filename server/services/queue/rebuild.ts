@@ -1,0 +1,22 @@
+// The whole queue brought in step with strings, forecasts, public reports and certificates. Safe to
+// run at any time: open items are keyed, so nothing is opened twice, and settled reports stay settled.
+import { wakeSnoozed } from './actions'
+import type { Conn } from './items'
+import { syncCertificateItems } from './certificates'
+import { syncReportItems } from './reports'
+import { syncForecastItems, syncStateItems, type StringForecastRisk } from './strings'
+
+const openCount = async (db: Conn) =>
+  Number((await db('queueItems').where('state', 'open').count({ n: '*' }))[0].n)
+
+/** `risks` are the latest forecasts (the forecast job's answer). */
+export async function rebuildQueue(db: Conn, risks: StringForecastRisk[], now = new Date()) {
+  const before = await openCount(db)
+  await wakeSnoozed(db, now)
+  await syncStateItems(db, now)
+  await syncForecastItems(db, risks, now)
+  await syncReportItems(db, now)
+  await syncCertificateItems(db, now)
+  const after = await openCount(db)
+  return { opened: Math.max(0, after - before), open: after }
+}

@@ -1,0 +1,68 @@
+// Runs on a pool thread (loaded by boot.mjs): the heavy pure computations, each behind its name.
+// Input problems come back as { err } and become 4xx answers; anything else thrown is a bug, which
+// the pool rejects with and the error handler logs as a 500.
+import { readlinkSync } from 'node:fs'
+import { getPriority, setPriority } from 'node:os'
+import { parentPort } from 'node:worker_threads'
+import type { z } from 'zod'
+import { forecast } from '../../shared/engine/forecast'
+import type { ForecastRequest } from '../../shared/schemas/engine'
+import { tourRequestSchema } from '../../shared/schemas/routing'
+import { solveTour } from '../../shared/routing/solve'
+import { planRuns, type PlanInput } from '../../shared/routing/plan'
+
+// Below the event loop's priority, so when the cores are busy requests are served first. On Linux a
+// thread has its own nice value (piscina's niceIncrement does the same through a native add-on).
+try {
+  const tid = Number(readlinkSync('/proc/thread-self').split('/').pop())
+  setPriority(tid, Math.min(19, getPriority(tid) + 10))
+} catch {
+  // not Linux: the threads keep the process's priority
+}
+
+export type TaskName = 'forecast' | 'solve' | 'plan'
+
+export interface TaskError {
+  status: number
+  code: string
+  message: string
+  details?: unknown
+}
+
+export type TaskReply = { ok: unknown } | { err: TaskError }
+
+const tasks: Record<TaskName, (input: unknown) => TaskReply> = {
+  // Validated on the event loop already: a forecast request is at most 50 lamp classes.
+  forecast: (input) => ({ ok: forecast(input as ForecastRequest) }),
+  // A 1,000-stop matrix is a million numbers: checking them is work too, so it happens here.
+  solve: (input) => {
+    const parsed = tourRequestSchema.safeParse(input)
+    if (!parsed.success) return { err: validationFailed(parsed.error) }
+    return { ok: solveTour(parsed.data) }
+  },
+  plan: (input) => ({ ok: planRuns(input as PlanInput) }),
+}
+
+/** The same answer as server/middleware/validate.ts gives for a body that fails its schema. */
+function validationFailed(error: z.ZodError): TaskError {
+  const fields = error.issues.map((i) => ({ path: ['body', ...i.path].join('.'), message: i.message }))
+  return {
+    status: 400,
+    code: 'validation_failed',
+    message: 'Some body fields are not valid.',
+    details: { fields },
+  }
+}
+
+export function runTask(job: { id: number; task: TaskName; input: unknown }): TaskReply {
+  // The job's clock starts now, not while it waited for a thread.
+  parentPort?.postMessage({ started: job.id })
+  try {
+    return tasks[job.task](job.input)
+  } catch (err) {
+    // The shared solvers throw RangeError for input they cannot take.
+    if (err instanceof RangeError)
+      return { err: { status: 400, code: 'invalid_request', message: err.message } }
+    throw err
+  }
+}

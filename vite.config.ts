@@ -71,6 +71,19 @@ export default defineConfig({
             },
           },
           {
+            // The basemap archive (BASEMAP_FILE): kept whole once fetched, then each range the map
+            // asks for is cut from the cached copy, so the map draws offline.
+            urlPattern: ({ url, sameOrigin }) => sameOrigin && url.pathname === '/basemap.pmtiles',
+            handler: 'CacheFirst',
+            method: 'GET',
+            options: {
+              cacheName: 'lw-basemap',
+              rangeRequests: true,
+              expiration: { maxEntries: 1, maxAgeSeconds: 7 * 24 * 3600 },
+              cacheableResponse: { statuses: [200] },
+            },
+          },
+          {
             // Lets the app start offline as the person last signed in; cleared on sign-out.
             urlPattern: ({ url, sameOrigin }) => sameOrigin && url.pathname === '/api/v1/auth/me',
             handler: 'NetworkFirst',

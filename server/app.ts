@@ -15,6 +15,7 @@ import { allRoutes } from './routes/index'
 import { API_PREFIX, buildOpenApi } from './openapi'
 import { tileOrigin } from './services/tiles'
 import { serveClient } from './static'
+import { serveBasemapFile } from './basemap-file'
 import { logger } from './logger'
 
 const REQUEST_ID = /^[A-Za-z0-9._-]{1,64}$/
@@ -72,6 +73,7 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
   app.use(API_PREFIX, api)
   app.use('/api', apiNotFound)
 
+  serveBasemapFile(app, deps.config)
   const clientDir = opts.clientDir ?? join(process.cwd(), 'dist')
   if (existsSync(join(clientDir, 'index.html'))) serveClient(app, clientDir)
   app.use(errorHandler)

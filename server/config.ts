@@ -1,9 +1,18 @@
 // The environment, parsed once. Every setting the README lists is read here and nowhere else.
 import { z } from 'zod'
+import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, isTimeZone } from '../shared/local-time'
 
 /** A bad setting; the message is the one line start-up prints. */
 export class SettingError extends Error {
   override name = 'SettingError'
+}
+
+const isLocale = (tag: string) => {
+  try {
+    return Intl.DateTimeFormat.supportedLocalesOf([tag]).length > 0
+  } catch {
+    return false
+  }
 }
 
 const unsetWhenEmpty = <T extends z.ZodType>(s: T) =>
@@ -53,6 +62,15 @@ const schema = z.object({
   /** 0 = a free port, so two instances run side by side. */
   SMTP_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   MAIL_FROM: z.string().default('Lampwright <no-reply@lampwright.example>'),
+  /** The app's own zone: crews' shifts and runs, and clients without one of their own. */
+  APP_TIME_ZONE: z
+    .string()
+    .default(DEFAULT_TIME_ZONE)
+    .refine(isTimeZone, 'must be an IANA time-zone name such as Europe/London'),
+  /** One locale for every date and number the app writes (BCP 47, e.g. en-GB). */
+  APP_LOCALE: z.string().default(DEFAULT_LOCALE).refine(isLocale, 'must be a locale tag such as en-GB'),
+  /** A PMTiles archive the server serves itself at /basemap.pmtiles as the map's basemap. */
+  BASEMAP_FILE: unsetWhenEmpty(z.string()),
   TILE_URL: z.string().optional(),
   TILE_ATTRIBUTION: z.string().default('Lampwright demo basemap'),
   TILE_MAX_ZOOM: z.coerce.number().int().min(1).max(22).default(19),

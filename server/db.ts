@@ -53,8 +53,12 @@ export function knexConfig(url: string): Knex.Config {
   }
 }
 
-export type Db = Knex
+/**
+ * What every service takes: the app's connection pool or a transaction, so a caller can commit the
+ * work of several services at once. The one connection type of the server.
+ */
+export type Db = Knex | Knex.Transaction
 
-export function createDb(url: string): Db {
+export function createDb(url: string): Knex {
   return knex(knexConfig(url))
 }

@@ -9,4 +9,9 @@ export interface AppDeps {
   jwtSecret: string
   mailer: Mailer
   uploadDir: string
+  /** The clock; unset = the real one. Tests set it to fake a time of day (never a request's input). */
+  now?: () => Date
 }
+
+/** Now, by the app's clock. */
+export const nowOf = (deps: Pick<AppDeps, 'now'>): Date => deps.now?.() ?? new Date()

@@ -11,7 +11,7 @@ import { createMailer, createTransport } from './mail/mailer'
 import { startFakeSmtp } from './mail/fake-smtp'
 import { logger } from './logger'
 import { startJobs } from './jobs/schedule'
-import { closeWorkers } from './workers/pool'
+import { closeWorkers, warmWorkers } from './workers/pool'
 import { activeDemoAccounts, ensureFirstAdmin, firstAdminLine } from './services/first-admin'
 import { portError, reportStartError, StartError } from './start-errors'
 
@@ -65,6 +65,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env) {
     const port = typeof addr === 'object' && addr ? addr.port : config.PORT
     logger.info({ port }, 'Lampwright is listening')
     const stopJobs = startJobs(db)
+    warmWorkers()
     return {
       port,
       async close() {

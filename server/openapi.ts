@@ -3,6 +3,7 @@ import { OpenAPIRegistry, OpenApiGeneratorV31, extendZodWithOpenApi } from '@ast
 import { z, type ZodType } from 'zod'
 import { errorSchema } from '../shared/schemas/common'
 import type { RouteDef } from './route-table'
+import { idempotencyHeaders } from './middleware/idempotency'
 
 extendZodWithOpenApi(z)
 
@@ -47,6 +48,7 @@ export function buildOpenApi(defs: RouteDef[]) {
       request: {
         params: d.params as never,
         query: d.query as never,
+        headers: d.idempotency ? idempotencyHeaders(d.idempotency) : undefined,
         body: body
           ? {
               content: {

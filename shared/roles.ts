@@ -18,7 +18,32 @@ export const roleLabel: Record<Role, string> = {
   admin: 'Administrator',
 }
 
-/** Roles that plan and direct field work. */
-export const planners: Role[] = ['supervisor', 'manager', 'admin']
-/** Roles that log field work. */
-export const fieldRoles: Role[] = ['crew', 'supervisor']
+// Who may call a route (server/routes/*) or open a page (src/router/routes.ts): every role list is one
+// of these names, so a permission reads the same on both sides and is changed in one place.
+
+/** Every signed-in user. */
+export const everyone: readonly Role[] = roles
+/** Who log field work (visits, isolations, photos) and carry a run: crews and their supervisors. */
+export const fieldWorkers: readonly Role[] = ['crew', 'supervisor']
+/** Who plan and direct field work: the queue, runs, overdue and energy reports. */
+export const planners: readonly Role[] = ['supervisor', 'manager', 'admin']
+/** Who read the office records (register, crews, certificates, isolations): everyone but the crews. */
+export const office: readonly Role[] = ['supervisor', 'manager', 'safety', 'admin']
+/** Who sign safety records: certificates and isolation reviews. */
+export const safetyOfficers: readonly Role[] = ['safety', 'admin']
+/** Who see what the client is told: the client report. */
+export const managers: readonly Role[] = ['manager', 'admin']
+/** Who enter and edit the estate: clients, sites, supply points, circuits, structures, types, strings. */
+export const estateEditors: readonly Role[] = ['manager', 'admin']
+/** Who manage accounts and settings. */
+export const admins: readonly Role[] = ['admin']
+/** Who follow the crews' runs on the map and the printed run sheet. */
+export const runFollowers: readonly Role[] = ['crew', 'supervisor', 'manager']
+/** Pages that are one role's own work, e.g. `only.crew` for tonight's run. */
+export const only: Record<Role, readonly Role[]> = {
+  crew: ['crew'],
+  supervisor: ['supervisor'],
+  manager: ['manager'],
+  safety: ['safety'],
+  admin: ['admin'],
+}

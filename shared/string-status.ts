@@ -76,6 +76,19 @@ export function stringStatus(type: TypeSpec, c: Condition) {
   return { status, replaceNow: !c.isolated && (c.dark || result.replaceNow), result }
 }
 
+/** The columns a string row stores for its condition and the state worked out from it. */
+export function stateColumns(c: Condition, s: ReturnType<typeof stringStatus>) {
+  return {
+    lampsOut: c.lampsOut,
+    fuseFailed: c.fuseFailed,
+    dark: !s.result.lit,
+    isolated: c.isolated,
+    status: s.status,
+    replaceNow: s.replaceNow,
+    maxRatio: s.result.maxRatio,
+  }
+}
+
 export interface LifeSpec extends TypeSpec {
   ratedLifeHours: number
   weibullShape: number

@@ -1,7 +1,36 @@
-// Every date and time the client shows or sends, in one place so each kind of date reads the same on
-// every page. Times are the device's own; the server sends instants in UTC and calendar days as
-// YYYY-MM-DD, both of which dayjs reads as they are meant.
+// Every date, time and number the client shows or sends, in one place so each reads the same on every
+// page. Times are shown in the app's zone and locale (GET /config: APP_TIME_ZONE, APP_LOCALE), not the
+// device's: a crew member's phone set to another zone still sees the town's clock.
 import dayjs from 'dayjs'
+import utc from 'dayjs/plugin/utc.js'
+import timezone from 'dayjs/plugin/timezone.js'
+import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, localDay } from '../shared/local-time'
+
+dayjs.extend(utc)
+dayjs.extend(timezone)
+
+let zone = DEFAULT_TIME_ZONE
+let locale = DEFAULT_LOCALE
+
+/** Set once GET /config has answered. */
+export function setDateSettings(s: { timeZone: string; locale: string }): void {
+  zone = s.timeZone
+  locale = s.locale
+}
+
+export function appTimeZone(): string {
+  return zone
+}
+export function appLocale(): string {
+  return locale
+}
+
+const CALENDAR_DAY = /^\d{4}-\d{2}-\d{2}$/
+/** An instant in the app's zone; a calendar day (YYYY-MM-DD) stays that day whatever the zone. */
+function inZone(at: DateInput) {
+  if (typeof at === 'string' && CALENDAR_DAY.test(at)) return dayjs.tz(at, zone)
+  return dayjs(at).tz(zone)
+}
 
 export type DateInput = string | number | Date
 
@@ -49,22 +78,28 @@ export type DateStyle = keyof typeof STYLES
 /** `at` in one of the styles above; `empty` when there is no date (a dash in tables, say). */
 export function formatDate(at: DateInput | null | undefined, style: DateStyle, empty = ''): string {
   if (at === null || at === undefined || at === '') return empty
-  return dayjs(at).format(STYLES[style])
+  const d = inZone(at)
+  return d.isValid() ? d.format(STYLES[style]) : empty
 }
 
-/** Today's calendar day on this device (YYYY-MM-DD). */
+/** A number in the app's locale (grouping and decimal marks), at most `digits` decimals. */
+export function formatNumber(n: number, digits = 0): string {
+  return new Intl.NumberFormat(locale, { maximumFractionDigits: digits }).format(n)
+}
+
+/** Today's calendar day in the app's zone (YYYY-MM-DD). */
 export function today(): string {
-  return formatDate(new Date(), 'isoDate')
+  return localDay(new Date(), zone)
 }
 
-/** Now, as the device's time with its offset. */
+/** Now, as the app zone's wall clock with its offset. */
 export function localStamp(): string {
   return formatDate(new Date(), 'isoStamp')
 }
 
 /** A calendar day `n` days after `day` (YYYY-MM-DD in and out). */
 export function addDays(day: string, n: number): string {
-  return formatDate(dayjs(day).add(n, 'day').toDate(), 'isoDate')
+  return dayjs(day).add(n, 'day').format(STYLES.isoDate)
 }
 
 /** Whole days from `from` to `to`, both calendar days. */
@@ -72,13 +107,15 @@ export function daysBetween(from: string, to: string): number {
   return dayjs(to).diff(dayjs(from), 'day')
 }
 
-/** Tomorrow at the given hour on this device, for datetime-local inputs. */
+/** Tomorrow at the given hour in the app's zone, for datetime-local inputs. */
 export function tomorrowAt(hour: number): string {
-  return formatDate(dayjs().add(1, 'day').hour(hour).minute(0).toDate(), 'isoMinute')
+  return dayjs
+    .tz(`${addDays(today(), 1)}T${String(hour).padStart(2, '0')}:00:00`, zone)
+    .format(STYLES.isoMinute)
 }
 
 export function isToday(at: DateInput): boolean {
-  return dayjs(at).isSame(dayjs(), 'day')
+  return formatDate(at, 'isoDate') === today()
 }
 
 /** A readable date-time that is later than now. */
@@ -86,7 +123,8 @@ export function isFuture(at: DateInput | null | undefined): boolean {
   return !!at && dayjs(at).isValid() && dayjs(at).isAfter(dayjs())
 }
 
-/** A local date-time (as a datetime-local input gives it) as an ISO instant in UTC for the API. */
+/** A wall-clock date-time in the app's zone (as a datetime-local input gives it) as an ISO instant. */
 export function toInstant(at: DateInput): string {
+  if (typeof at === 'string' && !/(Z|[+-]\d{2}:?\d{2})$/.test(at)) return dayjs.tz(at, zone).toISOString()
   return dayjs(at).toISOString()
 }

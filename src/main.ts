@@ -2,6 +2,8 @@ import { createApp } from 'vue'
 import { createPinia } from 'pinia'
 import { Dark, Dialog, Loading, LocalStorage, Notify, Quasar } from 'quasar'
 import iconSet from 'quasar/icon-set/svg-mdi-v7'
+// The default APP_LOCALE's pack (date pickers, table labels); dates themselves come from src/dates.ts.
+import lang from 'quasar/lang/en-GB.js'
 
 // Fonts ship with the app (Latin subset only, to keep the bundle small); no font CDN.
 import '@fontsource/roboto/latin-400.css'
@@ -23,6 +25,7 @@ const app = createApp(App)
 app.use(Quasar, {
   plugins: { Notify, Dialog, Dark, LocalStorage, Loading },
   iconSet,
+  lang,
   config: {
     notify: { position: 'top', timeout: 5000 },
     loading: { delay: 300 },

@@ -5,6 +5,8 @@ const benches = [
   'scripts/bench/forecast.ts',
   'scripts/bench/routing.ts',
   'scripts/bench/bbox.ts',
+  'scripts/bench/register.ts',
+  'scripts/bench/import.ts',
   'scripts/bench/event-loop.ts',
 ]
 let failed = false

@@ -1,9 +1,9 @@
 import type { Db } from '../../server/db'
 import type { Rng } from './geo'
+import { isoDay } from '../../shared/iso-time'
 
 const H = 3_600_000
 const D = 24 * H
-const isoDate = (t: number) => new Date(t).toISOString().slice(0, 10)
 
 const stepsOn = ['identify', 'isolate', 'lock_off', 'prove_tester', 'test_dead', 'reprove_tester'] as const
 const stepsOff = ['remove_lock', 're_energise', 'functional_check', 'rcd_test'] as const
@@ -121,8 +121,8 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
       subjectType: 'platform',
       subjectId: p.id,
       reference: `TE-${p.assetTag}-26B`,
-      doneOn: isoDate(done),
-      nextDue: isoDate(done + 182 * D),
+      doneOn: isoDay(done),
+      nextDue: isoDay(done + 182 * D),
       result: 'pass',
       inspector: 'Fellbeck Lifting Inspections',
       readings: JSON.stringify({ safeWorkingLoadKg: i === 0 ? 320 : 200 }),
@@ -141,8 +141,8 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
       subjectType: 'structure',
       subjectId: s.id,
       reference: `ST-${s.ref}`,
-      doneOn: isoDate(done),
-      nextDue: isoDate(due),
+      doneOn: isoDay(done),
+      nextDue: isoDay(due),
       result: 'pass',
       inspector: 'Ashlow Structural Testing',
       readings: s.kind === 'anchor' ? JSON.stringify({ proofLoadKn: 6 }) : null,
@@ -158,8 +158,8 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
       subjectType: 'circuit',
       subjectId: c.id,
       reference: `RCD-${c.ref}`,
-      doneOn: isoDate(t - 12 * D),
-      nextDue: isoDate(t + 18 * D),
+      doneOn: isoDay(t - 12 * D),
+      nextDue: isoDay(t + 18 * D),
       result: failed ? 'fail' : 'pass',
       inspector: 'Wrenfold Electrical Services',
       readings: JSON.stringify({ ratedMa: 30, tripMsAt1x: x1, tripMsAt5x: x5 }),
@@ -171,8 +171,8 @@ export async function seedCertificates(db: Db, r: Rng, now: Date, createdBy: num
       subjectType: 'circuit',
       subjectId: c.id,
       reference: `IR-${c.ref}`,
-      doneOn: isoDate(t - 13 * D),
-      nextDue: isoDate(t + 352 * D),
+      doneOn: isoDay(t - 13 * D),
+      nextDue: isoDay(t + 352 * D),
       result: mohm < 1 ? 'fail' : 'pass',
       inspector: 'Wrenfold Electrical Services',
       readings: JSON.stringify({ testVolts: 500, megohms: mohm }),

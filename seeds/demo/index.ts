@@ -2,7 +2,7 @@
 // `now` so every screen has fresh data whenever the demo starts. It refuses a database with users
 // unless told to wipe it.
 import type { Db } from '../../server/db'
-import { stringStatus, type TypeSpec } from '../../shared/string-status'
+import { stateColumns, stringStatus, type TypeSpec } from '../../shared/string-status'
 import { rng } from './geo'
 import { seedPeople } from './people'
 import { seedClientsAndTypes, seedPlaces } from './places'
@@ -16,6 +16,7 @@ import { loadConfig } from '../../server/config'
 import { DEMO_SETTINGS } from '../../server/services/demo-settings'
 import { demoAccounts, DEMO_PASSWORD } from './accounts'
 import { demoBasemap } from './basemap'
+import { isoDay } from '../../shared/iso-time'
 
 /** What the server shows in demo mode only: the sign-in page's accounts and the drawn streets. */
 async function saveDemoSettings(db: Db) {
@@ -79,7 +80,7 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
     else if (roll < 0.22) cond.lampsOut = filament ? r.int(2, 4) : r.int(2, 6)
     else if (roll < 0.25 && filament) cond.fuseFailed = true
     else if (roll < 0.26) cond.isolated = true
-    const { status, replaceNow, result } = stringStatus(spec, cond)
+    const assessed = stringStatus(spec, cond)
     rows.push({
       assetTag: p.assetTag,
       name: p.name,
@@ -91,16 +92,10 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
       lat: p.lat,
       lng: p.lng,
       line: p.line ? JSON.stringify(p.line) : null,
-      installedOn: new Date(now.getTime() - (40 + r.int(0, 10)) * 86_400_000).toISOString().slice(0, 10),
+      installedOn: isoDay(now.getTime() - (40 + r.int(0, 10)) * 86_400_000),
       // A few strings carry last season's lamps, near their rated life: the forecast should notice.
       lampAgeHours: filament ? (r.chance(0.03) ? r.int(1300, 1500) : r.int(0, 600)) : r.int(0, 8000),
-      lampsOut: cond.lampsOut,
-      fuseFailed: cond.fuseFailed,
-      dark: !result.lit,
-      isolated: cond.isolated,
-      status,
-      replaceNow,
-      maxRatio: result.maxRatio,
+      ...stateColumns(cond, assessed),
     })
   }
   for (let i = 0; i < rows.length; i += 200) await db('strings').insert(rows.slice(i, i + 200))
@@ -148,7 +143,7 @@ async function backdateQueue(db: Db, r: ReturnType<typeof rng>, now: Date) {
 
 /** Tonight's runs, planned and published by the demo supervisor, so crews open the app to real work. */
 async function publishTonight(db: Db, now: Date, supervisorId: number) {
-  const date = now.toISOString().slice(0, 10)
+  const date = isoDay(now)
   const items = (await listQueue(db, { state: 'open' }, now)).filter((i) => i.lat !== null).slice(0, 14)
   const crews = (await db('crews').select('id')).map((c) => c.id as number)
   const plan = await proposePlan(db, { date, crewIds: crews, itemIds: items.map((i) => i.id), pins: [] })

@@ -2,6 +2,7 @@ import type { Db } from '../../server/db'
 import { along, toLatLng, type Rng } from './geo'
 import { clientsDef, streets, type StreetDef } from './town'
 import { typeDefs } from '../../shared/lamp-catalogue'
+import { isoDay } from '../../shared/iso-time'
 
 export interface SeedString {
   assetTag: string
@@ -16,8 +17,7 @@ export interface SeedString {
   line: [number, number][] | null
 }
 
-const dayOffset = (now: Date, days: number) =>
-  new Date(now.getTime() + days * 86_400_000).toISOString().slice(0, 10)
+const dayOffset = (now: Date, days: number) => isoDay(now.getTime() + days * 86_400_000)
 
 export async function seedClientsAndTypes(db: Db, now: Date) {
   for (const c of Object.values(clientsDef)) {

@@ -3,6 +3,9 @@ import type { Db } from '../db'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { loadType } from '../services/strings'
 import { stringForecast } from '../services/string-engine'
+import { forecastInstant, localDay } from '../../shared/local-time'
+import { clientZones } from '../services/zones'
+import type { StringForecastRisk } from '../services/queue/strings'
 
 /** Fewer trials than the string page: enough for a queue threshold, fast for a whole town. */
 const JOB_TRIALS = 400
@@ -12,6 +15,7 @@ export async function refreshForecasts(db: Db, now = new Date()) {
     .join('sites as si', 'si.id', 's.siteId')
     .join('clients as c', 'c.id', 'si.clientId')
     .whereNotIn('s.status', ['dark', 'safe'])
+    .whereNull('s.archivedAt')
     .select(
       's.id',
       's.assetTag',
@@ -28,22 +32,16 @@ export async function refreshForecasts(db: Db, now = new Date()) {
       'c.switchOff',
     )
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
-  const today = now.toISOString().slice(0, 10)
-  const out: {
-    id: number
-    assetTag: string
-    status: string
-    siteId: number
-    clientId: number
-    pDark72: number
-    burnHoursPerDay: number
-  }[] = []
+  // Each client's own calendar: its "today" and the local switch-on time of the forecast date.
+  const zones = await clientZones(db)
+  const out: StringForecastRisk[] = []
   const updates: { id: number; at: Date | null }[] = []
   for (const r of rows) {
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
     const type = types.get(r.typeId)!
     const burn = burnHoursPerDay(r.switchOn, r.switchOff)
-    const fc = stringForecast(type, r, burn, today, JOB_TRIALS)
+    const zone = zones.get(r.clientId)!
+    const fc = stringForecast(type, r, burn, localDay(now, zone), JOB_TRIALS)
     const p72 = fc.pDark.find((p) => p.hours === 72)?.p ?? 0
     out.push({
       id: r.id,
@@ -55,7 +53,7 @@ export async function refreshForecasts(db: Db, now = new Date()) {
       burnHoursPerDay: burn,
     })
     const median = fc.dates?.medianDark
-    updates.push({ id: r.id, at: median ? new Date(`${median}T${r.switchOn}:00Z`) : null })
+    updates.push({ id: r.id, at: median ? forecastInstant(median, r.switchOn, zone) : null })
   }
   // One statement per 200 strings rather than one per string.
   for (let i = 0; i < updates.length; i += 200) {

@@ -2,6 +2,7 @@ import type { Config } from '../config'
 import type { MailMessage } from './mailer'
 import type { CrewRun } from '../../shared/schemas/runs'
 import { baseUrl } from './templates'
+import { formatDay } from '../../shared/local-time'
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`)
 const mapsLink = (lat: number, lng: number) => `geo:${lat},${lng}`
@@ -13,7 +14,10 @@ export function runMail(
   run: CrewRun,
   changed: boolean,
 ): MailMessage {
-  const title = `${changed ? 'Changed: ' : ''}${run.crewName} run for ${run.date} (${run.stops.length} stops)`
+  // The day in words in the app's locale; the shift's times are the crew's local clock (APP_TIME_ZONE).
+  const day = formatDay(run.date, config.APP_LOCALE)
+  const shift = `${run.shiftStart}–${run.shiftEnd}${run.shiftEnd < run.shiftStart ? ' (ends after midnight)' : ''}`
+  const title = `${changed ? 'Changed: ' : ''}${run.crewName} run for ${day} (${run.stops.length} stops)`
   const lines = run.stops.map(
     (s, i) =>
       `${i + 1}. ${s.arrive}–${s.depart}  ${s.assetTag ?? ''} ${s.summary}${s.siteName ? ` (${s.siteName})` : ''}  ${mapsLink(s.lat, s.lng)}`,
@@ -24,7 +28,7 @@ export function runMail(
     '',
     changed ? 'Your run has changed since it was published.' : 'Your run has been published.',
     '',
-    `Shift ${run.shiftStart}–${run.shiftEnd} from ${run.depot.name}${run.platform ? `, platform ${run.platform}` : ''}.`,
+    `${day}: shift ${shift} from ${run.depot.name}${run.platform ? `, platform ${run.platform}` : ''}.`,
     '',
     ...lines,
     '',
@@ -40,7 +44,7 @@ export function runMail(
     )
     .join('')
   const html = `<p>Hello ${esc(to.name)},</p><p>${changed ? 'Your run has <b>changed</b> since it was published.' : 'Your run has been published.'}</p>
-<p>Shift ${esc(run.shiftStart)}–${esc(run.shiftEnd)} from ${esc(run.depot.name)}${run.platform ? `, platform ${esc(run.platform)}` : ''}.</p>
+<p>${esc(day)}: shift ${esc(shift)} from ${esc(run.depot.name)}${run.platform ? `, platform ${esc(run.platform)}` : ''}.</p>
 <table border="1" cellpadding="4" cellspacing="0"><tr><th>#</th><th>Time</th><th>Tag</th><th>Work</th><th>Where</th></tr>${rows}</table>
 <p>Back at the depot about ${esc(run.returnAt)}. <a href="${esc(link)}">Open the run in Lampwright</a>.</p>
 <p><b>Isolate before relamping:</b> lamp sockets on a series string can be live at full supply voltage.</p>`

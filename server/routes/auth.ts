@@ -7,7 +7,7 @@ import {
   sessionResponse,
   signInBody,
 } from '../../shared/schemas/auth'
-import { roles } from '../../shared/roles'
+import { everyone } from '../../shared/roles'
 import { defineRoute, type RouteDef } from '../route-table'
 import type { AppDeps } from '../deps'
 import { HttpError, badRequest } from '../errors'
@@ -78,7 +78,7 @@ export const authRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/auth/me',
-    access: roles,
+    access: everyone,
     tag: 'auth',
     summary: 'The signed-in user',
     response: meResponse,
@@ -105,7 +105,7 @@ export const authRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/auth/password',
-    access: roles,
+    access: everyone,
     tag: 'auth',
     summary: 'Change the password; other sessions end and this device gets a fresh one',
     body: changePasswordBody,

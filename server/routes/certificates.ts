@@ -1,3 +1,4 @@
+import { office, safetyOfficers } from '../../shared/roles'
 import {
   certificateBody,
   certificateCreated,
@@ -12,7 +13,7 @@ export const certificateRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/certificates',
-    access: ['safety', 'supervisor', 'manager', 'admin'],
+    access: office,
     tag: 'safety',
     summary: 'Latest certificate per subject and kind, filtered by due state',
     query: certificateQuery,
@@ -22,7 +23,7 @@ export const certificateRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/certificates',
-    access: ['safety', 'admin'],
+    access: safetyOfficers,
     tag: 'safety',
     summary: 'Record a test or inspection; RCD and insulation readings decide pass or fail',
     body: certificateBody,

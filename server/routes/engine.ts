@@ -1,4 +1,4 @@
-import { roles } from '../../shared/roles'
+import { everyone } from '../../shared/roles'
 import {
   assessRequestSchema,
   assessResponseSchema,
@@ -21,7 +21,7 @@ export const engineRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/engine/assess',
-    access: roles,
+    access: everyone,
     tag: 'engine',
     summary: 'Voltage share, stress factors and the replace-now verdict',
     body: assessRequestSchema,
@@ -31,7 +31,7 @@ export const engineRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/engine/forecast',
-    access: roles,
+    access: everyone,
     tag: 'engine',
     summary: `Monte Carlo forecast of the failure cascade; at most ${MAX_FORECAST_COST} trials × lamps in circuit (413 beyond)`,
     body: forecastRequestSchema,
@@ -41,7 +41,7 @@ export const engineRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/engine/estimate-shorted',
-    access: roles,
+    access: everyone,
     tag: 'engine',
     summary: 'Shorted lamps estimated from a clamp-meter reading',
     body: estimateShortedRequestSchema,
@@ -51,7 +51,7 @@ export const engineRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/engine/cold-resistance',
-    access: roles,
+    access: everyone,
     tag: 'engine',
     summary: 'Expected cold resistance and what a reading points to',
     body: coldResistanceRequestSchema,
@@ -61,7 +61,7 @@ export const engineRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/engine/circuit',
-    access: roles,
+    access: everyone,
     tag: 'engine',
     summary: 'Circuit loading, switch-on peak against the breaker curve, energy',
     body: circuitRequestSchema,

@@ -15,9 +15,12 @@ import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
 import { reportRoutes } from './reports'
 import { managerRoutes } from './manager'
+import { registerRoutes } from './register'
 import { settingsRoutes } from './settings'
+import { withEstate } from './estate'
 
-export const allRoutes: RouteDef[] = [
+// The estate's routes (estate.ts) join the table; paths already here keep their answers.
+export const allRoutes: RouteDef[] = withEstate([
   ...systemRoutes,
   ...authRoutes,
   ...userRoutes,
@@ -33,5 +36,6 @@ export const allRoutes: RouteDef[] = [
   ...certificateRoutes,
   ...reportRoutes,
   ...managerRoutes,
+  ...registerRoutes,
   ...settingsRoutes,
-]
+])

@@ -1,3 +1,4 @@
+import { office, safetyOfficers } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { isolationAuditList, isolationQuery, reviewBody } from '../../shared/schemas/isolations'
 import { defineRoute, type RouteDef } from '../route-table'
@@ -8,7 +9,7 @@ export const isolationRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/isolations',
-    access: ['safety', 'supervisor', 'manager', 'admin'],
+    access: office,
     tag: 'safety',
     summary: 'Isolation records with their steps and findings, for sign-off',
     query: isolationQuery,
@@ -18,7 +19,7 @@ export const isolationRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/isolations/:id/review',
-    access: ['safety', 'admin'],
+    access: safetyOfficers,
     tag: 'safety',
     summary: 'Approve or reject an isolation record',
     params: idParam,

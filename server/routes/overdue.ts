@@ -1,3 +1,4 @@
+import { planners } from '../../shared/roles'
 import { overdueReport } from '../../shared/schemas/overdue'
 import { defineRoute, type RouteDef } from '../route-table'
 import { overdueReport as buildReport } from '../services/overdue'
@@ -6,7 +7,7 @@ export const overdueRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/overdue',
-    access: ['manager', 'supervisor', 'admin'],
+    access: planners,
     tag: 'queue',
     summary: 'Open work per client against contract response times: overdue and due soon',
     response: overdueReport,

@@ -1,6 +1,6 @@
 import { idParam } from '../../shared/schemas/common'
 import { photoList, photoUploadBody } from '../../shared/schemas/photos'
-import { fieldRoles, roles } from '../../shared/roles'
+import { everyone, fieldWorkers } from '../../shared/roles'
 import { defineRoute, type RouteDef } from '../route-table'
 import { memoryUpload } from '../middleware/upload'
 import { listPhotos, savePhotos, sendPhoto } from '../services/photos'
@@ -11,20 +11,28 @@ export const photoRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/visits/:id/photos',
-    access: fieldRoles,
+    access: fieldWorkers,
     tag: 'field',
-    summary: 'Attach photos to a visit (multipart field "photo", up to 8; JPEG, PNG or WebP)',
+    summary:
+      'Attach photos to a visit (multipart field "photo", up to 8; JPEG, PNG or WebP); a repeated Idempotency-Key answers 200 with the first upload',
+    // Optional: the phone's outbox always sends one, so a repeated upload is not stored twice.
+    idempotency: 'optional',
     params: idParam,
     body: photoUploadBody,
     bodyType: 'multipart',
     response: photoList,
     status: 201,
     before: (deps) => [memoryUpload(deps.config)],
-    handler: async ({ req, res, params, user, deps }) => {
+    handler: async ({ req, res, params, user, deps, idempotencyKey }) => {
       const files = Array.isArray(req.files) ? req.files : []
-      // Optional here: the phone's outbox sends one so a repeated upload is not stored twice.
-      const key = req.header('Idempotency-Key')?.trim().slice(0, 64) || null
-      const { created, items } = await savePhotos(deps.db, deps.uploadDir, params.id, user, files, key)
+      const { created, items } = await savePhotos(
+        deps.db,
+        deps.uploadDir,
+        params.id,
+        user,
+        files,
+        idempotencyKey,
+      )
       if (!created) res.status(200)
       return { items }
     },
@@ -32,7 +40,7 @@ export const photoRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/visits/:id/photos',
-    access: roles,
+    access: everyone,
     tag: 'field',
     summary: 'Photos of a visit',
     params: idParam,
@@ -42,7 +50,7 @@ export const photoRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/photos/:id/file',
-    access: roles,
+    access: everyone,
     tag: 'field',
     summary: `A photo (at most 2048 px). ${cacheNote}`,
     params: idParam,
@@ -52,7 +60,7 @@ export const photoRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/photos/:id/thumb',
-    access: roles,
+    access: everyone,
     tag: 'field',
     summary: `A photo's thumbnail (320 px). ${cacheNote}`,
     params: idParam,

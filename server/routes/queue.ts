@@ -14,13 +14,11 @@ import { listQueue } from '../services/queue/list'
 import { refreshQueue } from '../jobs/refresh-queue'
 import { audited } from '../services/audit'
 
-const queueRoles = ['supervisor', 'manager', 'admin'] as const
-
 export const queueRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/queue',
-    access: queueRoles,
+    access: planners,
     tag: 'queue',
     summary: 'Work queue ranked by priority score, with filters',
     query: queueQuery,

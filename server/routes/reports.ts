@@ -10,12 +10,19 @@ export const reportRoutes: RouteDef[] = [
     path: '/reports',
     access: 'public',
     tag: 'public',
-    summary: 'Report a fault without an account',
+    summary:
+      'Report a fault without an account; a repeated Idempotency-Key answers 200 with the first report',
+    // Optional: the public form sends one made when it opens; other senders may leave it out.
+    idempotency: 'optional',
     body: reportBody,
     response: reportStatus,
     status: 201,
     before: (deps) => [limitByAddress(deps.db, LIMITS.report)],
-    handler: ({ deps, body, req }) => createReport(deps.db, body, req.ip ?? ''),
+    handler: async ({ deps, body, req, res, idempotencyKey }) => {
+      const { created, report } = await createReport(deps.db, body, req.ip ?? '', idempotencyKey)
+      if (!created) res.status(200)
+      return report
+    },
   }),
   defineRoute({
     method: 'get',

@@ -1,4 +1,4 @@
-import { planners } from '../../shared/roles'
+import { fieldWorkers, office, planners } from '../../shared/roles'
 import {
   crewList,
   myRun,
@@ -12,15 +12,17 @@ import { defineRoute, type RouteDef } from '../route-table'
 import { loadCrews } from '../services/run-items'
 import { proposePlan, publishRuns } from '../services/runs'
 import { listRuns } from '../services/run-list'
-import { badRequest } from '../errors'
+import { askFrom } from '../services/crew-membership'
+import { localToday, shiftDate } from '../../shared/local-time'
+import { nowOf, type AppDeps } from '../deps'
 
-const today = () => new Date().toISOString().slice(0, 10)
+const today = (deps: AppDeps) => localToday(deps.config.APP_TIME_ZONE, nowOf(deps))
 
 export const runRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/crews',
-    access: ['supervisor', 'manager', 'admin', 'safety'],
+    access: office,
     tag: 'runs',
     summary: 'Crews with depot, shift, platform and members',
     response: crewList,
@@ -59,23 +61,35 @@ export const runRoutes: RouteDef[] = [
     query: runsQuery,
     response: runsList,
     handler: async ({ deps, query }) => ({
-      date: query.date ?? today(),
-      runs: await listRuns(deps.db, query.date ?? today()),
+      date: query.date ?? today(deps),
+      runs: await listRuns(deps.db, query.date ?? today(deps)),
     }),
   }),
   defineRoute({
     method: 'get',
     path: '/runs/mine',
-    access: ['crew', 'supervisor'],
+    access: fieldWorkers,
     tag: 'runs',
-    summary: "The signed-in crew member's run for a date (default today)",
+    summary:
+      "The signed-in crew member's run for a date (default: the crew's current shift, which may have begun yesterday)",
     query: runsQuery,
     response: myRun,
     handler: async ({ deps, query, user }) => {
-      if (!user.crewId) throw badRequest('no_crew', 'You are not a member of a crew.')
-      const date = query.date ?? today()
+      // Not on a crew yet: not an error, the page says whom to ask.
+      if (!user.crewId)
+        return { date: query.date ?? today(deps), run: null, crew: null, askFrom: await askFrom(deps.db) }
+      const [crew] = await loadCrews(deps.db, [user.crewId])
+      // 00:20 on a 16:00–00:30 shift is still the previous day's run.
+      const date =
+        query.date ??
+        shiftDate(nowOf(deps), { start: crew.shiftStart, end: crew.shiftEnd }, deps.config.APP_TIME_ZONE)
       const [run] = await listRuns(deps.db, date, user.crewId)
-      return { date, run: run?.state === 'published' ? run : null }
+      return {
+        date,
+        run: run?.state === 'published' ? run : null,
+        crew: { id: crew.id, name: crew.name },
+        askFrom: [],
+      }
     },
   }),
 ]

@@ -1,4 +1,4 @@
-import { roles } from '../../shared/roles'
+import { admins, everyone } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import {
   stringTypeList,
@@ -9,12 +9,13 @@ import {
 import { defineRoute, type RouteDef } from '../route-table'
 import { listStringTypes, updateStringType } from '../services/string-types'
 import { audited } from '../services/audit'
+import { basemapSettings } from '../services/tiles'
 
 export const settingsRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/string-types',
-    access: roles,
+    access: everyone,
     tag: 'settings',
     summary: 'String types with lamp classes, thresholds and life model',
     response: stringTypeList,
@@ -23,7 +24,7 @@ export const settingsRoutes: RouteDef[] = [
   defineRoute({
     method: 'patch',
     path: '/string-types/:id',
-    access: ['admin'],
+    access: admins,
     tag: 'settings',
     summary: "Change a type's replace-now threshold or life model; its strings are restated at once",
     params: idParam,
@@ -46,15 +47,24 @@ export const settingsRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/settings/system',
-    access: ['admin'],
+    access: admins,
     tag: 'settings',
     summary: 'Where tiles, mail and travel times come from (set by environment)',
     response: systemSettings,
     handler: ({ deps }) => ({
-      tiles: {
-        source: deps.config.TILE_URL ? 'tile_server' : 'demo_basemap',
-        url: deps.config.TILE_URL ?? null,
-      },
+      tiles: (() => {
+        const b = basemapSettings(deps.config)
+        const source = {
+          pmtiles: 'basemap_file',
+          tile_server: 'tile_server',
+          demo: 'demo_basemap',
+          none: 'none',
+        } as const
+        return {
+          source: source[b.kind],
+          url: b.kind === 'pmtiles' ? (deps.config.BASEMAP_FILE ?? null) : b.url,
+        }
+      })(),
       mail: { transport: deps.config.SMTP_URL ? 'smtp' : 'local_fake', from: deps.config.MAIL_FROM },
       routing: {
         source: deps.config.ROUTING_URL ? 'routing_service' : 'straight_line',

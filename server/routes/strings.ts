@@ -1,4 +1,4 @@
-import { roles } from '../../shared/roles'
+import { everyone } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import {
   bboxQuery,
@@ -17,7 +17,7 @@ export const stringRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/strings',
-    access: roles,
+    access: everyone,
     tag: 'strings',
     summary: 'Strings in a bounding box, or found by tag or street',
     query: bboxQuery,
@@ -27,7 +27,7 @@ export const stringRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/strings/by-tag/:tag',
-    access: roles,
+    access: everyone,
     tag: 'strings',
     summary: 'Find a string by its asset tag (QR label)',
     params: tagParam,
@@ -37,7 +37,7 @@ export const stringRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/strings/:id',
-    access: roles,
+    access: everyone,
     tag: 'strings',
     summary: 'One string with its assessment, forecast and history',
     params: idParam,
@@ -47,7 +47,7 @@ export const stringRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/circuits/:id/load',
-    access: roles,
+    access: everyone,
     tag: 'strings',
     summary: 'Running and switch-on current of every string on a circuit against its breaker, RCD and energy',
     params: idParam,

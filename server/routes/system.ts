@@ -1,10 +1,11 @@
+import { admins } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { clientConfig, healthResponse, mailList, mailMessage } from '../../shared/schemas/system'
 import { defineRoute, type RouteDef } from '../route-table'
 import { HttpError } from '../errors'
 import type { Config } from '../config'
 import { getMail, listMail } from '../services/mail'
-import { tileSettings } from '../services/tiles'
+import { basemapSettings, tileSettings } from '../services/tiles'
 import { demoAccountsSetting, demoBasemapSetting } from '../services/demo-settings'
 import { basemap } from '../../shared/schemas/system'
 
@@ -54,6 +55,9 @@ export const systemRoutes: RouteDef[] = [
         demoPassword: accounts?.password ?? null,
         tiles: tileSettings(deps.config),
         mailOutbox: demo && !deps.config.SMTP_URL,
+        basemap: basemapSettings(deps.config),
+        timeZone: deps.config.APP_TIME_ZONE,
+        locale: deps.config.APP_LOCALE,
       }
     },
   }),
@@ -74,7 +78,7 @@ export const systemRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/mail',
-    access: ['admin'],
+    access: admins,
     tag: 'system',
     summary: 'Messages caught by the local mail fake (demo only)',
     response: mailList,
@@ -86,7 +90,7 @@ export const systemRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/mail/:id',
-    access: ['admin'],
+    access: admins,
     tag: 'system',
     summary: 'One caught message (demo only)',
     params: idParam,

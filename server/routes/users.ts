@@ -1,3 +1,4 @@
+import { admins } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import { inviteBody, userList, userPatch, userResponse } from '../../shared/schemas/auth'
 import { defineRoute, type RouteDef } from '../route-table'
@@ -9,7 +10,7 @@ export const userRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/users',
-    access: ['admin'],
+    access: admins,
     tag: 'users',
     summary: 'All users',
     response: userList,
@@ -18,7 +19,7 @@ export const userRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/users',
-    access: ['admin'],
+    access: admins,
     tag: 'users',
     summary: 'Invite a user by e-mail',
     body: inviteBody,
@@ -45,7 +46,7 @@ export const userRoutes: RouteDef[] = [
   defineRoute({
     method: 'patch',
     path: '/users/:id',
-    access: ['admin'],
+    access: admins,
     tag: 'users',
     summary: 'Change role or deactivate',
     params: idParam,

@@ -1,7 +1,6 @@
-import { fieldRoles } from '../../shared/roles'
+import { fieldWorkers } from '../../shared/roles'
 import { isolationBody, isolationResult, visitBody, visitResult } from '../../shared/schemas/visits'
 import { defineRoute, type RouteDef } from '../route-table'
-import { requireIdempotencyKey } from '../middleware/idempotency'
 import { logVisit } from '../services/visits'
 import { recordIsolation } from '../services/isolations'
 
@@ -9,14 +8,15 @@ export const visitRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/visits',
-    access: fieldRoles,
+    access: fieldWorkers,
     tag: 'field',
-    summary: 'Log a visit (Idempotency-Key header required)',
+    summary: 'Log a visit; a repeated Idempotency-Key answers 200 with the first visit',
+    idempotency: 'required',
     body: visitBody,
     response: visitResult,
     status: 201,
-    handler: async ({ deps, req, res, body, user }) => {
-      const { created, visit } = await logVisit(deps.db, user, requireIdempotencyKey(req), body)
+    handler: async ({ deps, res, body, user, idempotencyKey }) => {
+      const { created, visit } = await logVisit(deps.db, user, idempotencyKey, body)
       if (!created) res.status(200)
       return visit
     },
@@ -24,14 +24,15 @@ export const visitRoutes: RouteDef[] = [
   defineRoute({
     method: 'post',
     path: '/isolations',
-    access: fieldRoles,
+    access: fieldWorkers,
     tag: 'field',
-    summary: 'Record an isolation and its steps (Idempotency-Key header required)',
+    summary: 'Record an isolation and its steps; a repeated Idempotency-Key adds the steps it lacks',
+    idempotency: 'required',
     body: isolationBody,
     response: isolationResult,
     status: 201,
-    handler: async ({ deps, req, res, body, user }) => {
-      const { created, isolation } = await recordIsolation(deps.db, user, requireIdempotencyKey(req), body)
+    handler: async ({ deps, res, body, user, idempotencyKey }) => {
+      const { created, isolation } = await recordIsolation(deps.db, user, idempotencyKey, body)
       if (!created) res.status(200)
       return { id: isolation.id, state: isolation.state, steps: isolation.steps }
     },

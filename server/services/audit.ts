@@ -28,8 +28,8 @@ export async function audited<T>(
   entry: (result: T) => AuditEntry,
 ): Promise<T> {
   return db.transaction(async (trx) => {
-    const result = await change(trx as unknown as Db)
-    await audit(trx as unknown as Db, entry(result))
+    const result = await change(trx)
+    await audit(trx, entry(result))
     return result
   })
 }

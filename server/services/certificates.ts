@@ -4,6 +4,7 @@ import { judgeReadings } from '../../shared/test-limits'
 import type { z } from 'zod'
 import type { certificateBody } from '../../shared/schemas/certificates'
 import { syncCertificateItems } from './queue/certificates'
+import { isoDay } from '../../shared/iso-time'
 
 const DAY = 86_400_000
 
@@ -24,8 +25,8 @@ export async function listCertificates(
   q: { kind?: string; due: string; limit: number },
   now = new Date(),
 ) {
-  const today = now.toISOString().slice(0, 10)
-  const soon = new Date(now.getTime() + 30 * DAY).toISOString().slice(0, 10)
+  const today = isoDay(now)
+  const soon = isoDay(now.getTime() + 30 * DAY)
   // The newest record per subject and kind is the one that counts.
   const b = db('certificates as c').whereRaw(
     'c.id = (select max(c2.id) from certificates c2 where c2.kind = c.kind and c2.subject_type = c.subject_type and c2.subject_id = c.subject_id)',

@@ -3,6 +3,7 @@
 import type { Db } from '../db'
 import { notFound } from '../errors'
 import { energyReport } from './energy'
+import { isoDay } from '../../shared/iso-time'
 
 const DAY = 86_400_000
 const num = (v: unknown) => Number(v ?? 0)
@@ -14,8 +15,8 @@ export async function clientReport(
 ) {
   const c = await db('clients').where({ id: q.clientId }).first()
   if (!c) throw notFound('Client')
-  const from = q.from ?? c.seasonStart ?? now.toISOString().slice(0, 10)
-  const to = q.to ?? now.toISOString().slice(0, 10)
+  const from = q.from ?? c.seasonStart ?? isoDay(now)
+  const to = q.to ?? isoDay(now)
   const start = new Date(`${from}T00:00:00Z`)
   const end = new Date(Date.parse(`${to}T00:00:00Z`) + DAY)
   const siteIds = db('sites').where({ clientId: c.id }).select('id')

@@ -2,6 +2,7 @@ import type { Db } from '../db'
 import { notFound } from '../errors'
 import type { IsolationAudit } from '../../shared/schemas/isolations'
 import { isolationFindings } from './isolation-findings'
+import { iso, isoOrNull } from '../../shared/iso-time'
 
 interface Row {
   id: number
@@ -19,8 +20,6 @@ interface Row {
   startedAt: Date
   completedAt: Date | null
 }
-
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
 
 export async function listIsolationAudits(db: Db, q: { review: string; limit: number }) {
   const rows = (await db('isolations as i')
@@ -53,7 +52,7 @@ export async function listIsolationAudits(db: Db, q: { review: string; limit: nu
   const items: IsolationAudit[] = rows.map((r) => {
     const mine = steps
       .filter((s) => s.isolationId === r.id)
-      .map((s) => ({ step: s.step, doneAt: iso(s.doneAt)!, value: s.value ?? null }))
+      .map((s) => ({ step: s.step, doneAt: iso(s.doneAt), value: s.value ?? null }))
     const record = { state: r.state, lockId: r.lockId ?? null, testerId: r.testerId ?? null, steps: mine }
     return {
       id: r.id,
@@ -68,8 +67,8 @@ export async function listIsolationAudits(db: Db, q: { review: string; limit: nu
       review: r.review,
       reviewNote: r.reviewNote ?? null,
       reviewedBy: r.reviewerName ?? null,
-      startedAt: iso(r.startedAt)!,
-      completedAt: iso(r.completedAt),
+      startedAt: iso(r.startedAt),
+      completedAt: isoOrNull(r.completedAt),
       steps: mine,
       findings: isolationFindings(record),
     }
@@ -86,7 +85,7 @@ export async function listIsolationAudits(db: Db, q: { review: string; limit: nu
     items,
     withoutIsolation: without.map((v) => ({
       visitId: v.id,
-      visitedAt: iso(v.visitedAt)!,
+      visitedAt: iso(v.visitedAt),
       assetTag: v.assetTag,
       userName: v.name,
       reason: v.noIsolationReason ?? null,

@@ -1,9 +1,8 @@
-import type { Knex } from 'knex'
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
 import { isolateSteps, isolationSteps, restoreSteps, type IsolationBody } from '../../shared/schemas/visits'
-
-type Trx = Knex | Knex.Transaction
+import { iso } from '../../shared/iso-time'
+import { writeOnce } from './keyed-write'
 
 function stateOf(done: Set<string>) {
   if (restoreSteps.every((s) => done.has(s))) return 'restored'
@@ -29,39 +28,43 @@ function checkOrder(steps: { step: string; doneAt: string | Date }[]) {
   }
 }
 
-export async function getIsolation(db: Trx, id: number) {
-  const iso = await db('isolations').where({ id }).first('id', 'state', 'stringId', 'idempotencyKey')
-  if (!iso) throw notFound('Isolation')
+export async function getIsolation(db: Db, id: number) {
+  const row = await db('isolations').where({ id }).first('id', 'state', 'stringId', 'idempotencyKey')
+  if (!row) throw notFound('Isolation')
   const steps = await db('isolationSteps')
     .where({ isolationId: id })
     .orderBy('doneAt')
     .select('step', 'doneAt')
   return {
-    id: iso.id,
-    state: iso.state,
-    stringId: iso.stringId,
-    steps: steps.map((s) => ({ step: s.step, doneAt: new Date(s.doneAt).toISOString() })),
+    id: row.id,
+    state: row.state,
+    stringId: row.stringId,
+    steps: steps.map((s) => ({ step: s.step, doneAt: iso(s.doneAt) })),
   }
+}
+
+interface Author {
+  id: number
+  crewId: number | null
 }
 
 /**
  * Records an isolation and its time-stamped steps. The same idempotency key again adds steps that
  * were not there yet (a crew may send the isolating steps first and the restoring ones later).
  */
-export async function recordIsolation(
-  db: Db,
-  user: { id: number; crewId: number | null },
-  key: string,
-  body: IsolationBody,
-) {
-  return db.transaction(async (trx) => {
-    const string = await trx('strings').where({ id: body.stringId }).first('id', 'circuitId')
-    if (!string) throw notFound('String')
-    let iso = await trx('isolations').where({ idempotencyKey: key }).forUpdate().first('id', 'stringId')
-    let created = false
-    if (iso && iso.stringId !== body.stringId)
-      throw badRequest('idempotency_conflict', 'This key was used for another string.')
-    if (!iso) {
+export async function recordIsolation(db: Db, user: Author, key: string, body: IsolationBody) {
+  const { created, result } = await writeOnce(db, {
+    index: 'isolations_idempotency_key_unique',
+    replay: async (trx) => {
+      const head = await trx('isolations').where({ idempotencyKey: key }).first('id', 'stringId')
+      if (!head) return undefined
+      if (head.stringId !== body.stringId)
+        throw badRequest('idempotency_conflict', 'This key was used for another string.')
+      return addSteps(trx, head.id, user, body)
+    },
+    create: async (trx) => {
+      const string = await trx('strings').where({ id: body.stringId }).first('id', 'circuitId')
+      if (!string) throw notFound('String')
       const startedAt = body.steps.length
         ? new Date(Math.min(...body.steps.map((s) => +new Date(s.doneAt))))
         : new Date()
@@ -75,39 +78,53 @@ export async function recordIsolation(
         testerId: body.testerId ?? null,
         startedAt,
       })
-      iso = { id, stringId: body.stringId }
-      created = true
-    }
-    const existing = await trx('isolationSteps').where({ isolationId: iso.id }).select('step', 'doneAt')
-    const have = new Set(existing.map((s) => s.step as string))
-    const fresh = body.steps.filter((s) => !have.has(s.step))
-    checkOrder([...existing, ...fresh])
-    if (fresh.length) {
-      await trx('isolationSteps').insert(
-        fresh.map((s) => ({
-          isolationId: iso.id,
-          step: s.step,
-          doneAt: new Date(s.doneAt),
-          userId: user.id,
-          value: s.value ?? null,
-          note: s.note ?? null,
-        })),
-      )
-    }
-    const done = new Set([...have, ...fresh.map((s) => s.step)])
-    const state = stateOf(done)
-    const patch: Record<string, unknown> = { state }
-    if (body.lockId) patch.lockId = body.lockId
-    if (body.testerId) patch.testerId = body.testerId
-    if (state === 'restored')
-      patch.completedAt = new Date(Math.max(...[...existing, ...fresh].map((s) => +new Date(s.doneAt))))
-    await trx('isolations').where({ id: iso.id }).update(patch)
-    return { created, isolation: await getIsolation(trx, iso.id) }
+      return addSteps(trx, id as number, user, body)
+    },
   })
+  return { created, isolation: result }
+}
+
+/** Adds the steps the isolation lacks and restates it; repeats of one key take their turn here. */
+async function addSteps(trx: Db, id: number, user: Author, body: IsolationBody) {
+  await trx('isolations').where({ id }).forUpdate().first('id')
+  // Locking reads: they see the steps a repeat that went just before has committed.
+  const stored = () =>
+    trx('isolationSteps').where({ isolationId: id }).orderBy('doneAt').forShare().select('step', 'doneAt')
+  const existing = await stored()
+  const have = new Set(existing.map((s) => s.step as string))
+  const fresh = body.steps.filter((s) => !have.has(s.step))
+  checkOrder([...existing, ...fresh])
+  if (fresh.length) {
+    await trx('isolationSteps').insert(
+      fresh.map((s) => ({
+        isolationId: id,
+        step: s.step,
+        doneAt: new Date(s.doneAt),
+        userId: user.id,
+        value: s.value ?? null,
+        note: s.note ?? null,
+      })),
+    )
+  }
+  const done = new Set([...have, ...fresh.map((s) => s.step)])
+  const state = stateOf(done)
+  const patch: Record<string, unknown> = { state }
+  if (body.lockId) patch.lockId = body.lockId
+  if (body.testerId) patch.testerId = body.testerId
+  if (state === 'restored')
+    patch.completedAt = new Date(Math.max(...[...existing, ...fresh].map((s) => +new Date(s.doneAt))))
+  await trx('isolations').where({ id }).update(patch)
+  const steps = fresh.length ? await stored() : existing
+  return {
+    id,
+    state,
+    stringId: body.stringId,
+    steps: steps.map((s) => ({ step: s.step as string, doneAt: iso(s.doneAt) })),
+  }
 }
 
 /** A relamp needs the string proven dead first: every isolating step recorded. */
-export async function requireIsolatedFor(trx: Trx, isolationId: number, stringId: number) {
+export async function requireIsolatedFor(trx: Db, isolationId: number, stringId: number) {
   const iso = await getIsolation(trx, isolationId)
   if (iso.stringId !== stringId)
     throw badRequest('isolation_mismatch', 'That isolation was recorded for another string.')

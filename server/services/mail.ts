@@ -1,7 +1,6 @@
 import type { Db } from '../db'
 import { notFound } from '../errors'
-
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d))
+import { iso } from '../../shared/iso-time'
 
 export async function listMail(db: Db) {
   const rows = await db('caughtMail')

@@ -11,6 +11,8 @@ import type { Encoded } from './photos/image'
 import { reencodeOffThread } from './photos/reencode-pool'
 import { readPhotoMeta, type PhotoMeta } from './photos/exif'
 import { photoUrls } from './photo-urls'
+import { writeOnce } from './keyed-write'
+import { isoOrNull } from '../../shared/iso-time'
 
 export interface UploadedFile {
   buffer: Buffer
@@ -21,7 +23,7 @@ const columns = ['id', 'width', 'height', 'takenAt', 'lat', 'lng'] as const
 
 function toItem(r: Record<string, unknown>): PhotoItem {
   const id = Number(r.id)
-  const takenAt = r.takenAt instanceof Date ? r.takenAt.toISOString() : ((r.takenAt as string | null) ?? null)
+  const takenAt = isoOrNull(r.takenAt)
   const num = (v: unknown) => (v === null || v === undefined ? null : Number(v))
   return {
     id,
@@ -57,6 +59,16 @@ async function requireVisitForUpload(db: Db, visitId: number, by: Uploader): Pro
   throw forbidden("Only the visit's author, a member of the author's crew or a supervisor may add photos.")
 }
 
+/** The photos an earlier upload with this key stored on the visit, if any. */
+async function storedUpload(db: Db, visitId: number, uploadKey: string | null) {
+  if (!uploadKey) return undefined
+  const rows = await db('photos')
+    .where({ visitId, uploadKey })
+    .orderBy('uploadSeq')
+    .select(...columns)
+  return rows.length ? rows.map(toItem) : undefined
+}
+
 export async function listPhotos(db: Db, visitId: number): Promise<PhotoItem[]> {
   await requireVisit(db, visitId)
   const rows = await db('photos')
@@ -80,17 +92,13 @@ export async function savePhotos(
 ): Promise<{ created: boolean; items: PhotoItem[] }> {
   await requireVisitForUpload(db, visitId, by)
   if (!files.length) throw badRequest('no_photo', 'Attach at least one photo in the form field "photo".')
-  if (uploadKey) {
-    const earlier = await db('photos')
-      .where({ visitId, uploadKey })
-      .orderBy('id')
-      .select('id', 'width', 'height', 'takenAt', 'lat', 'lng')
-    if (earlier.length) return { created: false, items: earlier.map(toItem) }
-  }
+  // A repeat that arrives after the first upload is stored is not even decoded.
+  const earlier = await storedUpload(db, visitId, uploadKey)
+  if (earlier) return { created: false, items: earlier }
   const mimes: AcceptedMime[] = []
   for (const f of files) mimes.push(await checkImage(f.buffer, f.originalname || 'photo'))
 
-  const prepared: { meta: PhotoMeta; encoded: Encoded; fileName: string; thumbName: string }[] = []
+  const prepared: Prepared[] = []
   for (const [i, f] of files.entries()) {
     const meta = await readPhotoMeta(f.buffer)
     const encoded = await reencodeOffThread(f.buffer, mimes[i], f.originalname || 'photo')
@@ -99,6 +107,7 @@ export async function savePhotos(
 
   const dir = resolve(uploadDir)
   const written: string[] = []
+  const removeWritten = () => Promise.all(written.map((path) => rm(path, { force: true })))
   try {
     await mkdir(dir, { recursive: true })
     for (const p of prepared) {
@@ -111,35 +120,55 @@ export async function savePhotos(
         await writeFile(path, bytes, { flag: 'wx' })
       }
     }
-    const ids = await db.transaction(async (trx) => {
-      const out: number[] = []
-      for (const p of prepared) {
-        const [id] = await trx('photos').insert({
-          visitId,
-          fileName: p.fileName,
-          thumbName: p.thumbName,
-          mime: 'image/jpeg',
-          width: p.encoded.width,
-          height: p.encoded.height,
-          bytes: p.encoded.full.length,
-          takenAt: p.meta.takenAt,
-          lat: p.meta.lat,
-          lng: p.meta.lng,
-          userId: by.id,
-          uploadKey,
-        })
-        out.push(Number(id))
-      }
-      return out
+    const { created, result } = await writeOnce(db, {
+      index: 'photos_upload_key_unique',
+      replay: (trx) => storedUpload(trx, visitId, uploadKey),
+      create: (trx) => insertPhotos(trx, visitId, by, uploadKey, prepared),
     })
-    const items = prepared.map((p, i) =>
-      toItem({ id: ids[i], width: p.encoded.width, height: p.encoded.height, ...p.meta }),
-    )
-    return { created: true, items }
+    // A repeat sent while the first was still being stored: the first upload's photos stand.
+    if (!created) await removeWritten()
+    return { created, items: result }
   } catch (err) {
-    await Promise.all(written.map((path) => rm(path, { force: true })))
+    await removeWritten()
     throw err
   }
+}
+
+interface Prepared {
+  meta: PhotoMeta
+  encoded: Encoded
+  fileName: string
+  thumbName: string
+}
+
+/** One row per photo, numbered in the upload: a repeat of the upload collides on its first photo. */
+async function insertPhotos(
+  trx: Db,
+  visitId: number,
+  by: Uploader,
+  uploadKey: string | null,
+  prepared: Prepared[],
+): Promise<PhotoItem[]> {
+  const items: PhotoItem[] = []
+  for (const [uploadSeq, p] of prepared.entries()) {
+    const [id] = await trx('photos').insert({
+      visitId,
+      fileName: p.fileName,
+      thumbName: p.thumbName,
+      mime: 'image/jpeg',
+      width: p.encoded.width,
+      height: p.encoded.height,
+      bytes: p.encoded.full.length,
+      takenAt: p.meta.takenAt,
+      lat: p.meta.lat,
+      lng: p.meta.lng,
+      userId: by.id,
+      uploadKey,
+      uploadSeq,
+    })
+    items.push(toItem({ id, width: p.encoded.width, height: p.encoded.height, ...p.meta }))
+  }
+  return items
 }
 
 /** Sends the stored JPEG (or its thumbnail) of one photo; cached privately since URLs never change. */

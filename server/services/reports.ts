@@ -3,25 +3,38 @@ import type { z } from 'zod'
 import type { Db } from '../db'
 import { notFound } from '../errors'
 import { reportStateLabel, type reportBody } from '../../shared/schemas/reports'
-import type { Conn } from './queue/items'
 import { openReportItems } from './queue/reports'
+import { writeOnce } from './keyed-write'
+import { iso } from '../../shared/iso-time'
 
 // Crockford-style alphabet without I, L, O, U: easy to read out over the phone.
 const ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ'
 const newRef = () => `LW-${Array.from({ length: 5 }, () => ALPHABET[randomInt(ALPHABET.length)]).join('')}`
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : String(d))
 
-/** Records a public report and opens its queue item in the same commit. */
-export async function createReport(db: Db, body: z.infer<typeof reportBody>, sourceIp: string) {
-  const ref = await db.transaction(async (trx) => {
-    const report = await insertReport(trx, body, sourceIp)
-    await openReportItems(trx, new Date(), [report.id])
-    return report.ref
+type ReportBody = z.infer<typeof reportBody>
+
+/**
+ * Records a public report and opens its queue item in the same commit. The form's Idempotency-Key,
+ * when sent, makes a repeated send (the answer was lost) return the first report instead of a second.
+ */
+export async function createReport(db: Db, body: ReportBody, sourceIp: string, key: string | null = null) {
+  const { created, result: ref } = await writeOnce(db, {
+    index: 'reports_idempotency_key_unique',
+    replay: async (trx) => {
+      if (!key) return undefined
+      const first = await trx('reports').where({ idempotencyKey: key }).first('ref')
+      return first?.ref as string | undefined
+    },
+    create: async (trx) => {
+      const report = await insertReport(trx, body, sourceIp, key)
+      await openReportItems(trx, new Date(), [report.id])
+      return report.ref
+    },
   })
-  return reportStatus(db, ref)
+  return { created, report: await reportStatus(db, ref) }
 }
 
-async function insertReport(db: Conn, body: z.infer<typeof reportBody>, sourceIp: string) {
+async function insertReport(db: Db, body: ReportBody, sourceIp: string, key: string | null) {
   const s = body.tag
     ? await db('strings').where({ assetTag: body.tag.toUpperCase() }).first('id', 'lat', 'lng', 'siteId')
     : null
@@ -41,6 +54,7 @@ async function insertReport(db: Conn, body: z.infer<typeof reportBody>, sourceIp
     reporterName: body.name ?? null,
     reporterEmail: body.email ?? null,
     sourceHash: createHash('sha256').update(sourceIp).digest('hex'),
+    idempotencyKey: key,
   })
   return { id: id as number, ref }
 }

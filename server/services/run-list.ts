@@ -1,8 +1,7 @@
 import type { Db } from '../db'
 import type { CrewRun } from '../../shared/schemas/runs'
 import { loadCrews } from './run-items'
-
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
+import { isoOrNull } from '../../shared/iso-time'
 
 /** Saved runs for a date (optionally one crew's), with each stop's string and site. */
 export async function listRuns(db: Db, date: string, crewId?: number): Promise<CrewRun[]> {
@@ -47,7 +46,7 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
       date,
       state: r.state,
       version: r.version,
-      publishedAt: iso(r.publishedAt),
+      publishedAt: isoOrNull(r.publishedAt),
       depot: { name: crew.depotName, lat: crew.depotLat, lng: crew.depotLng },
       shiftStart: crew.shiftStart,
       shiftEnd: crew.shiftEnd,
@@ -72,7 +71,7 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
             serviceMinutes: s.serviceMinutes ?? 0,
             pinned: !!s.pinned,
             window: s.accessFrom && s.accessTo ? { from: s.accessFrom, to: s.accessTo } : null,
-            doneAt: iso(s.doneAt),
+            doneAt: isoOrNull(s.doneAt),
           }
         }),
       returnAt: r.returnAt ?? crew.shiftStart,

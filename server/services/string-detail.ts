@@ -5,8 +5,10 @@ import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
 import { loadType } from './strings'
 import { stringAssessment, stringForecast } from './string-engine'
+import { iso, isoOrNull } from '../../shared/iso-time'
+import { localDay } from '../../shared/local-time'
+import { clientZone } from './zones'
 
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
 const parseLine = (v: unknown) =>
   (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
 
@@ -79,7 +81,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     : []
   const burn = burnHoursPerDay(site.switchOn, site.switchOff)
   const assessment = stringAssessment(type, s)
-  const fc = stringForecast(type, s, burn, now.toISOString().slice(0, 10))
+  const fc = stringForecast(type, s, burn, localDay(now, await clientZone(db, site.clientId)))
   return {
     id: s.id,
     assetTag: s.assetTag,
@@ -95,7 +97,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     line: parseLine(s.line),
     installedOn: s.installedOn ?? null,
     lampAgeHours: s.lampAgeHours,
-    lastVisitAt: iso(s.lastVisitAt),
+    lastVisitAt: isoOrNull(s.lastVisitAt),
     type,
     site: {
       id: site.id,
@@ -117,7 +119,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     forecastDates: { firstFailure: fc.dates?.failures[0] ?? null, dark: fc.dates?.medianDark ?? null },
     visits: visits.map((v) => ({
       ...v,
-      visitedAt: iso(v.visitedAt)!,
+      visitedAt: iso(v.visitedAt),
       fuseReplaced: !!v.fuseReplaced,
       darkOnArrival: !!v.darkOnArrival,
       notes: v.notes ?? null,

@@ -5,7 +5,7 @@ import { loadType } from './strings'
 import { syncStringQueue } from './queue/strings'
 
 export async function listStringTypes(db: Db) {
-  const rows = await db('stringTypes').orderBy('code').select('id')
+  const rows = await db('stringTypes').whereNull('archivedAt').orderBy('code').select('id')
   const grouped = (await db('strings').groupBy('typeId').select('typeId', db.raw('count(*) as n'))) as {
     typeId: number
     n: number
@@ -21,7 +21,7 @@ export async function updateStringType(db: Db, id: number, patch: Record<string,
   return db.transaction(async (trx) => {
     const n = await trx('stringTypes').where({ id }).update(patch)
     if (!n) throw notFound('String type')
-    const type = await loadType(trx as unknown as Db, id)
+    const type = await loadType(trx, id)
     let restated = 0
     const strings = await trx('strings')
       .where({ typeId: id })

@@ -25,6 +25,7 @@ export async function listForMap(
     const [minLng, minLat, maxLng, maxLat] = q.bbox
     query.whereBetween('s.lat', [minLat, maxLat]).whereBetween('s.lng', [minLng, maxLng])
   }
+  query.whereNull('s.archivedAt') // archived strings leave the map; their history stays
   if (q.status) query.where('s.status', q.status)
   if (q.q) {
     const like = `%${q.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`

@@ -27,3 +27,17 @@ export function tileOrigin(config: Config): string | null {
     return null
   }
 }
+
+/**
+ * Which basemap the client draws: the app's own PMTiles archive (BASEMAP_FILE), a tile server
+ * (TILE_URL), the demo town's drawn streets (demo mode only), or none — strings on a plain background.
+ */
+export function basemapSettings(config: Config): {
+  kind: 'pmtiles' | 'tile_server' | 'demo' | 'none'
+  url: string | null
+} {
+  if (config.BASEMAP_FILE) return { kind: 'pmtiles', url: '/basemap.pmtiles' }
+  if (config.TILE_URL) return { kind: 'tile_server', url: config.TILE_URL }
+  if (config.DEMO_MODE) return { kind: 'demo', url: null }
+  return { kind: 'none', url: null }
+}

@@ -3,6 +3,7 @@ import bcrypt from 'bcryptjs'
 import type { Db } from '../db'
 import type { Role } from '../../shared/roles'
 import { badRequest, conflict, notFound } from '../errors'
+import { isoOrNull } from '../../shared/iso-time'
 
 // OWASP password storage guidance: bcrypt work factor of at least 10.
 export const BCRYPT_COST = 11
@@ -22,14 +23,12 @@ export interface UserRow {
   lastSignInAt: string | null
 }
 
-const iso = (d: unknown): string | null => (d instanceof Date ? d.toISOString() : (d as string | null))
-
 function mapUser(r: Record<string, unknown>): UserRow {
   return {
     ...(r as unknown as UserRow),
     active: Boolean(r.active),
-    invitedAt: iso(r.invitedAt),
-    lastSignInAt: iso(r.lastSignInAt),
+    invitedAt: isoOrNull(r.invitedAt),
+    lastSignInAt: isoOrNull(r.lastSignInAt),
   }
 }
 

@@ -81,3 +81,11 @@ export function solveTourInPool(body: unknown, owner: JobOwner): Promise<TourRes
 export function planRunsInPool(input: PlanInput, owner?: JobOwner): Promise<PlanResult> {
   return runJob('plan', input, PLAN_TIMEOUT_MS, owner)
 }
+
+// Reading 50,000 rows (the import's cap) takes a few seconds on one core.
+const REGISTER_READ_TIMEOUT_MS = 60_000
+
+/** An import's file parsed and checked off the event loop; the caller has checked its size. */
+export function readRegisterInPool<T>(input: unknown, owner: JobOwner): Promise<T> {
+  return runJob('registerRead', input, REGISTER_READ_TIMEOUT_MS, owner)
+}

@@ -1,7 +1,7 @@
 // One pool of worker threads for the server's heavy pure computations (forecasts, tour search, run
 // planning), so a large one never stalls other requests on the event loop. Created on first use and
 // shared by every app in the process; idle threads are unref'd (they never keep a process alive) and
-// exit after a minute. server/index.ts closes it on shutdown.
+// exit after ten minutes. server/index.ts closes it on shutdown.
 import { availableParallelism } from 'node:os'
 import { Piscina } from 'piscina'
 import { config } from '../config'
@@ -28,7 +28,7 @@ function getPool(): Piscina {
     filename: new URL('./boot.mjs', import.meta.url).href,
     minThreads: 0,
     maxThreads: threads,
-    idleTimeout: 60_000,
+    idleTimeout: 600_000,
   })
   p.on('message', (m: { started?: number }) => {
     if (m?.started !== undefined) onStart.get(m.started)?.()
@@ -87,6 +87,16 @@ export async function runInPool<T>(task: TaskName, input: unknown, job: PoolJob)
     onStart.delete(id)
     job.signal?.removeEventListener('abort', stop)
   }
+}
+
+/**
+ * Starts a thread and loads the tasks' code at server start-up, so the first planner's request does
+ * not wait the seconds that takes. Threads then stay for ten idle minutes.
+ */
+export function warmWorkers(): void {
+  void getPool()
+    .run({ id: 0, task: 'warm', input: null })
+    .catch((err) => logger.warn({ err }, 'worker warm-up failed'))
 }
 
 /** Stops every thread; jobs still running or waiting fail. A later job starts a fresh pool. */

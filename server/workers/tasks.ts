@@ -10,6 +10,7 @@ import type { ForecastRequest } from '../../shared/schemas/engine'
 import { tourRequestSchema } from '../../shared/schemas/routing'
 import { solveTour } from '../../shared/routing/solve'
 import { planRuns, type PlanInput } from '../../shared/routing/plan'
+import { readRegisterFile, type ReadInput } from '../services/register/read-task'
 
 // Below the event loop's priority, so when the cores are busy requests are served first. On Linux a
 // thread has its own nice value (piscina's niceIncrement does the same through a native add-on).
@@ -20,7 +21,7 @@ try {
   // not Linux: the threads keep the process's priority
 }
 
-export type TaskName = 'forecast' | 'solve' | 'plan'
+export type TaskName = 'forecast' | 'solve' | 'plan' | 'registerRead'
 
 export interface TaskError {
   status: number
@@ -31,7 +32,7 @@ export interface TaskError {
 
 export type TaskReply = { ok: unknown } | { err: TaskError }
 
-const tasks: Record<TaskName, (input: unknown) => TaskReply> = {
+const tasks: Record<TaskName, (input: unknown) => TaskReply | Promise<TaskReply>> = {
   // Validated on the event loop already: a forecast request is at most 50 lamp classes.
   forecast: (input) => ({ ok: forecast(input as ForecastRequest) }),
   // A 1,000-stop matrix is a million numbers: checking them is work too, so it happens here.
@@ -41,6 +42,8 @@ const tasks: Record<TaskName, (input: unknown) => TaskReply> = {
     return { ok: solveTour(parsed.data) }
   },
   plan: (input) => ({ ok: planRuns(input as PlanInput) }),
+  // A register import's file: parsing and checking 50,000 rows is seconds of work.
+  registerRead: (input) => readRegisterFile(input as ReadInput),
 }
 
 /** The same answer as server/middleware/validate.ts gives for a body that fails its schema. */
@@ -54,7 +57,13 @@ function validationFailed(error: z.ZodError): TaskError {
   }
 }
 
-export function runTask(job: { id: number; task: TaskName; input: unknown }): TaskReply {
+export function runTask(job: {
+  id: number
+  task: TaskName | 'warm'
+  input: unknown
+}): TaskReply | Promise<TaskReply> {
+  // Start-up loads this module on a thread ahead of the first real job (pool.ts warmWorkers).
+  if (job.task === 'warm') return { ok: null }
   // The job's clock starts now, not while it waited for a thread.
   parentPort?.postMessage({ started: job.id })
   try {

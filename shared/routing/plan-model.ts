@@ -100,7 +100,7 @@ export function buildPlanModel(input: PlanInput): PlanModel {
 
 /** Places a clock window on the shift's timeline: past midnight when it ends before it starts,
  * or a day later when the whole window falls before the shift begins (night shifts). */
-function windowFor(window: { from: string; to: string }, start: number): [number, number] {
+export function windowFor(window: { from: string; to: string }, start: number): [number, number] {
   let lo = parseClock(window.from)
   let hi = parseClock(window.to)
   if (hi < lo) hi += DAY

@@ -87,7 +87,13 @@ export const publishBody = z.object({
 })
 export const runsQuery = z.object({ date: z.iso.date().optional() })
 export const runsList = z.object({ date: z.string(), runs: z.array(crewRun) })
-export const myRun = z.object({ date: z.string(), run: crewRun.nullable() })
+/** A field user's run; one not on a crew gets `crew: null` and the names of who can add them. */
+export const myRun = z.object({
+  date: z.string(),
+  run: crewRun.nullable(),
+  crew: z.object({ id: z.number(), name: z.string() }).nullable(),
+  askFrom: z.array(z.string()),
+})
 
 export const crewList = z.object({
   items: z.array(

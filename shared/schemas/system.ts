@@ -14,6 +14,11 @@ export const clientConfig = z.object({
     local: z.boolean(),
   }),
   mailOutbox: z.boolean(),
+  /** Which basemap to draw: `pmtiles` at `url` (same origin), a tile server, the demo's streets, or none. */
+  basemap: z.object({ kind: z.enum(['pmtiles', 'tile_server', 'demo', 'none']), url: z.string().nullable() }),
+  /** The app's IANA zone and BCP 47 locale: every date and number the client shows follows them. */
+  timeZone: z.string(),
+  locale: z.string(),
 })
 export const mailList = z.object({
   items: z.array(z.object({ id: z.number(), to: z.string(), subject: z.string(), createdAt: z.string() })),

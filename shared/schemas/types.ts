@@ -18,7 +18,10 @@ export const stringTypePatch = z
 export const stringTypeUpdated = z.object({ type: stringTypeRow, restated: z.number() })
 
 export const systemSettings = z.object({
-  tiles: z.object({ source: z.enum(['demo_basemap', 'tile_server']), url: z.string().nullable() }),
+  tiles: z.object({
+    source: z.enum(['basemap_file', 'tile_server', 'demo_basemap', 'none']),
+    url: z.string().nullable(),
+  }),
   mail: z.object({ transport: z.enum(['local_fake', 'smtp']), from: z.string() }),
   routing: z.object({ source: z.enum(['straight_line', 'routing_service']), url: z.string().nullable() }),
   demoMode: z.boolean(),

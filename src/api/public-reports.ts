@@ -1,6 +1,6 @@
 import type { z } from 'zod'
 import type { reportBody, reportStatus, streetList } from '../../shared/schemas/reports'
-import { http } from './http'
+import { http, request } from './http'
 
 export type ReportInput = z.input<typeof reportBody>
 export type ReportStatus = z.infer<typeof reportStatus>
@@ -13,7 +13,9 @@ export interface FieldProblem {
 }
 
 export const publicReportsApi = {
-  create: (input: ReportInput) => http.post<ReportStatus>('/reports', input),
+  /** `key`: made when the form opens, so sending again after a lost answer does not file a second report. */
+  create: (input: ReportInput, key: string) =>
+    request<ReportStatus>('POST', '/reports', { body: input, headers: { 'Idempotency-Key': key } }),
   status: (ref: string) => http.get<ReportStatus>(`/reports/${encodeURIComponent(ref)}`),
   streets: () => http.get<{ items: Street[] }>('/public/streets'),
 }

@@ -1,5 +1,6 @@
 import type { z } from 'zod'
 import type { queueItem, queueKinds, queueList, queueQuery, refreshResult } from '../../shared/schemas/queue'
+import type { ReportClosedState } from '../../shared/schemas/reports'
 import { http } from './http'
 
 export { queueKindLabel, queueKinds } from '../../shared/schemas/queue'
@@ -25,5 +26,7 @@ export const queueApi = {
     http.post<void>(`/queue/${id}/snooze`, { until, reason }),
   /** Folds `ids` into `into`; the target keeps its place and counts the merged items. */
   merge: (into: number, ids: number[]) => http.post<void>('/queue/merge', { into, ids }),
-  close: (id: number, reason: string) => http.post<void>(`/queue/${id}/close`, { reason }),
+  /** `reportState`, for a public-report item only: what the reporter's status page says now. */
+  close: (id: number, reason: string, reportState?: ReportClosedState) =>
+    http.post<void>(`/queue/${id}/close`, { reason, reportState }),
 }

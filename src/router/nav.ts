@@ -3,7 +3,9 @@ import {
   iconCalculator,
   iconCertificates,
   iconCrews,
+  iconEdit,
   iconEnergy,
+  iconEstate,
   iconIsolations,
   iconMap,
   iconOutbox,
@@ -37,10 +39,12 @@ export const NAV: Record<Role, NavItem[]> = {
     { to: '/plan', label: 'Plan runs', icon: iconPlan },
     { to: '/map', label: 'Map', icon: iconMap },
     { to: '/crews', label: 'Crews & platforms', icon: iconCrews },
+    { to: '/estate/crews', label: 'Edit crews', icon: iconEdit },
   ],
   manager: [
     { to: '/overdue', label: 'Overdue', icon: iconOverdue },
     { to: '/register', label: 'Register', icon: iconRegister },
+    { to: '/estate/clients', label: 'Estate', icon: iconEstate },
     { to: '/energy', label: 'Energy', icon: iconEnergy },
     { to: '/reports', label: 'Reports', icon: iconReports },
   ],
@@ -51,6 +55,7 @@ export const NAV: Record<Role, NavItem[]> = {
   admin: [
     { to: '/users', label: 'Users', icon: iconUsers },
     { to: '/settings', label: 'Settings', icon: iconSettings },
+    { to: '/estate/clients', label: 'Estate', icon: iconEstate },
   ],
 }
 

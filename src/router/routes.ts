@@ -1,5 +1,5 @@
 import type { RouteRecordRaw, RouteRecordSingleView } from 'vue-router'
-import { ROLES, type Role } from '../api/auth'
+import { admins, everyone, fieldWorkers, only, planners, runFollowers, type Role } from '../../shared/roles'
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -14,86 +14,93 @@ declare module 'vue-router' {
   }
 }
 
-const EVERY_ROLE = ROLES
-
 // Each page is loaded on first visit so a crew phone on weak signal downloads only its own screens.
 const privateRoutes: RouteRecordRaw[] = [
   // The guard sends `/` to the signed-in user's own home before anything renders.
-  { path: '', name: 'home', component: { render: () => null }, meta: { roles: EVERY_ROLE } },
+  { path: '', name: 'home', component: { render: () => null }, meta: { roles: everyone } },
 
   // crew
-  route('/run', 'run', "Tonight's run", ['crew'], () => import('../pages/run/RunPage.vue')),
-  route('/map', 'map', 'Map', ['crew', 'supervisor', 'manager'], () => import('../pages/map/MapPage.vue')),
-  route(
-    '/outbox',
-    'outbox',
-    'Outbox',
-    ['crew', 'supervisor'],
-    () => import('../pages/outbox/OutboxPage.vue'),
-  ),
+  route('/run', 'run', "Tonight's run", only.crew, () => import('../pages/run/RunPage.vue')),
+  route('/map', 'map', 'Map', runFollowers, () => import('../pages/map/MapPage.vue')),
+  route('/outbox', 'outbox', 'Outbox', fieldWorkers, () => import('../pages/outbox/OutboxPage.vue')),
   route(
     '/calculator',
     'calculator',
     'Calculator',
-    [...EVERY_ROLE],
+    everyone,
     () => import('../pages/calculator/CalculatorPage.vue'),
   ),
 
   // strings, visits and labels
-  route('/strings/:id', 'string', 'String', [...EVERY_ROLE], () => import('../pages/string/StringPage.vue')),
+  route('/strings/:id', 'string', 'String', everyone, () => import('../pages/string/StringPage.vue')),
   route(
     '/strings/:id/visit',
     'log-visit',
     'Log a visit',
-    ['crew', 'supervisor'],
+    fieldWorkers,
     () => import('../pages/visit/LogVisitPage.vue'),
   ),
-  route('/scan', 'scan', 'Scan a label', ['crew', 'supervisor'], () => import('../pages/scan/ScanPage.vue')),
+  route('/scan', 'scan', 'Scan a label', fieldWorkers, () => import('../pages/scan/ScanPage.vue')),
   route(
     '/runs/print',
     'run-sheet',
     'Run sheet',
-    ['crew', 'supervisor', 'manager'],
+    runFollowers,
     () => import('../pages/plan/RunSheetPage.vue'),
   ),
 
   // supervisor
-  route('/queue', 'queue', 'Queue', ['supervisor'], () => import('../pages/queue/QueuePage.vue')),
-  route('/plan', 'plan', 'Plan runs', ['supervisor'], () => import('../pages/plan/PlanPage.vue')),
-  route('/crews', 'crews', 'Crews & platforms', ['supervisor'], () => import('../pages/crews/CrewsPage.vue')),
+  route('/queue', 'queue', 'Queue', only.supervisor, () => import('../pages/queue/QueuePage.vue')),
+  route('/plan', 'plan', 'Plan runs', only.supervisor, () => import('../pages/plan/PlanPage.vue')),
+  route(
+    '/crews',
+    'crews',
+    'Crews & platforms',
+    only.supervisor,
+    () => import('../pages/crews/CrewsPage.vue'),
+  ),
+
+  // the estate: clients … platforms (supervisors see crews and platforms only; see components/estate/kinds.ts)
+  route('/estate/:kind', 'estate', 'Estate', planners, () => import('../pages/estate/EstatePage.vue')),
 
   // manager
-  route('/overdue', 'overdue', 'Overdue', ['manager'], () => import('../pages/overdue/OverduePage.vue')),
-  route('/register', 'register', 'Register', ['manager'], () => import('../pages/register/RegisterPage.vue')),
-  route('/energy', 'energy', 'Energy', ['manager'], () => import('../pages/energy/EnergyPage.vue')),
-  route('/reports', 'reports', 'Reports', ['manager'], () => import('../pages/reports/ReportsPage.vue')),
+  route('/overdue', 'overdue', 'Overdue', only.manager, () => import('../pages/overdue/OverduePage.vue')),
+  route(
+    '/register',
+    'register',
+    'Register',
+    only.manager,
+    () => import('../pages/register/RegisterPage.vue'),
+  ),
+  route('/energy', 'energy', 'Energy', only.manager, () => import('../pages/energy/EnergyPage.vue')),
+  route('/reports', 'reports', 'Reports', only.manager, () => import('../pages/reports/ReportsPage.vue')),
 
   // safety officer
   route(
     '/isolations',
     'isolations',
     'Isolations',
-    ['safety'],
+    only.safety,
     () => import('../pages/isolations/IsolationsPage.vue'),
   ),
   route(
     '/certificates',
     'certificates',
     'Certificates',
-    ['safety'],
+    only.safety,
     () => import('../pages/certificates/CertificatesPage.vue'),
   ),
 
   // admin
-  route('/users', 'users', 'Users', ['admin'], () => import('../pages/users/UsersPage.vue')),
-  route('/settings', 'settings', 'Settings', ['admin'], () => import('../pages/settings/SettingsPage.vue')),
+  route('/users', 'users', 'Users', only.admin, () => import('../pages/users/UsersPage.vue')),
+  route('/settings', 'settings', 'Settings', only.admin, () => import('../pages/settings/SettingsPage.vue')),
 
   // demo mode: the local mail fake's catch, invitation links included, so for admins only
   {
     path: '/mail/:id?',
     name: 'mail',
     component: () => import('../pages/mail/MailPage.vue'),
-    meta: { title: 'Mail outbox', roles: ['admin'], demoOnly: true },
+    meta: { title: 'Mail outbox', roles: admins, demoOnly: true },
   },
 ]
 
@@ -121,7 +128,13 @@ export const routes: RouteRecordRaw[] = [
 
 type Loader = RouteRecordSingleView['component']
 
-function route(path: string, name: string, title: string, roles: Role[], component: Loader): RouteRecordRaw {
+function route(
+  path: string,
+  name: string,
+  title: string,
+  roles: readonly Role[],
+  component: Loader,
+): RouteRecordRaw {
   return { path, name, component, meta: { title, roles } }
 }
 

@@ -1,6 +1,8 @@
 import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { configApi, type AppConfig } from '../api/config'
+import { setDateSettings } from '../dates'
+import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE } from '../../shared/local-time'
 
 const FALLBACK: AppConfig = {
   appName: 'Lampwright',
@@ -9,6 +11,9 @@ const FALLBACK: AppConfig = {
   demoPassword: null,
   tiles: { url: null, attribution: '', maxZoom: 20, local: true },
   mailOutbox: false,
+  basemap: { kind: 'none', url: null },
+  timeZone: DEFAULT_TIME_ZONE,
+  locale: DEFAULT_LOCALE,
 }
 
 // Public server settings (demo mode, map tiles, mail fake), fetched once per page load.
@@ -23,6 +28,7 @@ export const useAppConfigStore = defineStore('app-config', () => {
   async function fetchConfig(): Promise<void> {
     try {
       config.value = { ...FALLBACK, ...(await configApi.get()) }
+      setDateSettings(config.value)
     } catch {
       // Without config the app still works; demo helpers simply stay hidden.
       pending = null

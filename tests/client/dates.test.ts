@@ -1,9 +1,19 @@
 import { describe, expect, it } from 'vitest'
-import { addDays, daysBetween, formatDate, isFuture, isToday } from '../../src/dates'
+import {
+  addDays,
+  daysBetween,
+  formatDate,
+  formatNumber,
+  isFuture,
+  isToday,
+  setDateSettings,
+  toInstant,
+} from '../../src/dates'
 
-// Dates are built in the test machine's own time zone, as the app shows them in the device's.
+// Dates show in the app's zone (default Europe/London), whatever the device's. London is on UTC in
+// December and on UTC+1 (BST) in July (UK Summer Time Order 2002; timeanddate.com).
 // Expected texts are the app's chosen formats (common practice, no source); ISO 8601 for the machine ones.
-const at = new Date(2026, 11, 3, 21, 5, 9)
+const at = new Date(Date.UTC(2026, 11, 3, 21, 5, 9))
 
 describe('the client’s dates', () => {
   it('shows each style the same way everywhere', () => {
@@ -37,5 +47,29 @@ describe('the client’s dates', () => {
     expect(isFuture(new Date(Date.now() + 60_000))).toBe(true)
     expect(isFuture(new Date(Date.now() - 60_000))).toBe(false)
     expect(isFuture('')).toBe(false)
+  })
+
+  it('shows instants on the app zone’s clock and reads input times in it', () => {
+    expect(formatDate(new Date(Date.UTC(2026, 6, 1, 23, 30)), 'dateTime')).toBe('2 Jul 2026, 00:30')
+    expect(toInstant('2026-07-01T16:00')).toBe('2026-07-01T15:00:00.000Z')
+    setDateSettings({ timeZone: 'Europe/Paris', locale: 'en-GB' })
+    try {
+      // Paris is UTC+1 in December (CET).
+      expect(formatDate(at, 'time')).toBe('22:05')
+      expect(formatDate('2026-12-03', 'date')).toBe('3 Dec 2026')
+    } finally {
+      setDateSettings({ timeZone: 'Europe/London', locale: 'en-GB' })
+    }
+  })
+  it('writes numbers in the app locale', () => {
+    // en-GB: comma thousands separator, point decimal (CLDR en-GB).
+    expect(formatNumber(12345.678, 1)).toBe('12,345.7')
+    setDateSettings({ timeZone: 'Europe/London', locale: 'de-DE' })
+    try {
+      // de-DE: point thousands separator, comma decimal (CLDR de).
+      expect(formatNumber(12345.678, 1)).toBe('12.345,7')
+    } finally {
+      setDateSettings({ timeZone: 'Europe/London', locale: 'en-GB' })
+    }
   })
 })

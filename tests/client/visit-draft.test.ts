@@ -18,4 +18,9 @@ describe('visit form checks', () => {
     d.noIsolationReason = 'Pillar 14.'
     expect(checkDraft(d, 0, 19)).toEqual({})
   })
+
+  it("stamps the start with this phone's time and its offset, as the isolation record wants it", () => {
+    // ISO 8601 / RFC 3339 §5.6 date-time with a numeric offset.
+    expect(newDraft(1, 'WF-HS-012').startedAt).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d[+-]\d\d:\d\d$/)
+  })
 })

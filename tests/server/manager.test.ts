@@ -27,21 +27,7 @@ describe('energy', () => {
   })
 })
 
-describe('register', () => {
-  it('lists every string and filters by status and search', async () => {
-    const all = await request(t.app).get('/api/v1/register').set('Authorization', manager)
-    const count = Number((await t.db('strings').count({ n: '*' }))[0].n)
-    expect(all.body.items).toHaveLength(count)
-    const dark = await request(t.app).get('/api/v1/register?status=dark').set('Authorization', manager)
-    expect(dark.body.items.every((s: { status: string }) => s.status === 'dark')).toBe(true)
-    const hs = await request(t.app).get('/api/v1/register?q=WF-HS-01').set('Authorization', manager)
-    expect(hs.body.items.every((s: { assetTag: string }) => s.assetTag.startsWith('WF-HS-01'))).toBe(true)
-    const crew = await request(t.app)
-      .get('/api/v1/register')
-      .set('Authorization', `Bearer ${await t.token('crew')}`)
-    expect(crew.status).toBe(403)
-  })
-})
+// The register's paging, filters, import and export: tests/server/register*.test.ts.
 
 describe('client report', () => {
   it('counts the season’s visits and relamps under isolation for a client, and faults against contract time', async () => {

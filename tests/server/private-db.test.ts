@@ -11,7 +11,8 @@ import { createDb } from '../../server/db'
 
 const testDir = process.env.TEST_DB_DIR ?? ''
 const testPort = Number(process.env.DB_TEST_PORT)
-const LEGACY_PORT = 3324 // this suite's own port, beside DB_TEST_PORT
+// This suite's own port, beside DB_TEST_PORT, so runs on other test ports do not clash.
+const LEGACY_PORT = testPort + 16
 const mode = (path: string) => statSync(path).mode & 0o777
 
 /** The MariaDB error number of a root login over TCP, or 0 when it was let in. */

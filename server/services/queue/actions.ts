@@ -2,9 +2,10 @@
 // run these inside audited(), so each change and its audit row commit together.
 import { badRequest, notFound } from '../../errors'
 import type { ReportClosedState } from '../../../shared/schemas/reports'
-import { ACTIVE, closeItems, settleReports, type Conn } from './items'
+import { ACTIVE, closeItems, settleReports } from './items'
+import type { Db } from '../../db'
 
-async function openOrSnoozed(db: Conn, id: number) {
+async function openOrSnoozed(db: Db, id: number) {
   const item = await db('queueItems').where({ id }).first('id', 'state', 'kind')
   if (!item) throw notFound('Queue item')
   if (!(ACTIVE as readonly string[]).includes(item.state))
@@ -12,7 +13,7 @@ async function openOrSnoozed(db: Conn, id: number) {
   return item as { id: number; state: string; kind: string }
 }
 
-export async function snoozeItem(db: Conn, id: number, until: Date, reason: string, now = new Date()) {
+export async function snoozeItem(db: Db, id: number, until: Date, reason: string, now = new Date()) {
   await openOrSnoozed(db, id)
   if (until <= now)
     throw badRequest('validation_failed', 'Snooze until a time in the future.', {
@@ -22,7 +23,7 @@ export async function snoozeItem(db: Conn, id: number, until: Date, reason: stri
 }
 
 /** Snoozed items whose time has come are open again. */
-export async function wakeSnoozed(db: Conn, now = new Date()) {
+export async function wakeSnoozed(db: Db, now = new Date()) {
   await db('queueItems')
     .where('state', 'snoozed')
     .where('snoozedUntil', '<=', now)
@@ -30,7 +31,7 @@ export async function wakeSnoozed(db: Conn, now = new Date()) {
 }
 
 /** Folds duplicates into one item; a public report merged away is marked already reported. */
-export async function mergeItems(db: Conn, into: number, ids: number[], now = new Date()) {
+export async function mergeItems(db: Db, into: number, ids: number[], now = new Date()) {
   if (ids.includes(into))
     throw badRequest('validation_failed', 'An item cannot be merged into itself.', {
       fields: [{ path: 'body.ids', message: 'Remove the target.' }],
@@ -48,7 +49,7 @@ export async function mergeItems(db: Conn, into: number, ids: number[], now = ne
  * `reportState` (fixed unless the supervisor says otherwise), so the report is not opened again.
  */
 export async function closeItem(
-  db: Conn,
+  db: Db,
   id: number,
   reason: string,
   reportState?: ReportClosedState,

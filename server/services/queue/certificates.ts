@@ -1,19 +1,25 @@
 // Certificates in the queue: the newest record per subject and kind opens an item when it falls due
 // within the lead time or records a failed RCD test; a newer record that settles it closes the item.
-import { closeItems, openItem, ACTIVE, type Conn } from './items'
+import { closeItems, openItem, ACTIVE } from './items'
+import type { Db } from '../../db'
+import { isoDay } from '../../../shared/iso-time'
+import { endOfLocalDay } from '../../../shared/local-time'
+import { clientZones } from '../zones'
+import { config } from '../../config'
 
 const DAY = 86_400_000
 /** Certificates come into the queue this many days before they fall due (common practice, no source). */
 export const CERTIFICATE_LEAD_DAYS = 14
 
-export async function syncCertificateItems(db: Conn, now = new Date()) {
+export async function syncCertificateItems(db: Db, now = new Date()) {
   const certs = await db('certificates as c')
     .whereRaw(
       'c.id = (select max(c2.id) from certificates c2 where c2.kind = c.kind and c2.subject_type = c.subject_type and c2.subject_id = c.subject_id)',
     )
     .select('c.id', 'c.kind', 'c.subjectType', 'c.subjectId', 'c.reference', 'c.nextDue', 'c.result')
-  const soon = new Date(now.getTime() + CERTIFICATE_LEAD_DAYS * DAY).toISOString().slice(0, 10)
+  const soon = isoDay(now.getTime() + CERTIFICATE_LEAD_DAYS * DAY)
   const places = await certificatePlaces(db)
+  const zones = await clientZones(db)
   const wanted = new Set<string>()
   for (const c of certs) {
     const place = places.get(`${c.subjectType}:${c.subjectId}`) ?? { siteId: null, clientId: null }
@@ -44,7 +50,11 @@ export async function syncCertificateItems(db: Conn, now = new Date()) {
           severity: 'standard',
           certificateId: c.id,
           ...place,
-          dueBy: new Date(`${c.nextDue}T23:59:00Z`),
+          // Due "on" a date: the end of that day on the client's clock.
+          dueBy: endOfLocalDay(
+            c.nextDue,
+            (place.clientId && zones.get(place.clientId)) || config.APP_TIME_ZONE,
+          ),
           summary: `${label} due ${c.nextDue}`,
         },
         now,
@@ -60,7 +70,7 @@ export async function syncCertificateItems(db: Conn, now = new Date()) {
 }
 
 /** Where a certificate's subject stands: structures and circuits belong to a site; platforms to none. */
-async function certificatePlaces(db: Conn) {
+async function certificatePlaces(db: Db) {
   const map = new Map<string, { siteId: number | null; clientId: number | null }>()
   const structures = await db('structures as st')
     .join('sites as si', 'si.id', 'st.siteId')

@@ -1,12 +1,9 @@
 // Opening and closing queue items. One item is open per kind and subject (its open_key); every close
 // goes through closeItems, which also moves a public report out of `received`, so no refresh reopens it.
-import type { Knex } from 'knex'
 import type { Db } from '../../db'
 import type { QueueKind } from '../../../shared/schemas/queue'
 import { reportOpenStates, type ReportState } from '../../../shared/schemas/reports'
-
-/** A connection or a transaction: callers commit the queue with the change that caused it. */
-export type Conn = Db | Knex.Transaction
+import { dueAfter } from '../../../shared/local-time'
 
 /** Work still waiting: open, or snoozed until a time. */
 export const ACTIVE = ['open', 'snoozed'] as const
@@ -28,7 +25,7 @@ export interface OpenItem {
 const isDuplicate = (err: unknown) => (err as { code?: string }).code === 'ER_DUP_ENTRY'
 
 /** Opens a queue item unless one is already open for the same kind and subject; returns its id. */
-export async function openItem(db: Conn, item: OpenItem, now = new Date()): Promise<number> {
+export async function openItem(db: Db, item: OpenItem, now = new Date()): Promise<number> {
   const openKey = `${item.kind}:${item.subject}`
   const existing = await db('queueItems').where({ openKey }).first('id')
   if (existing) return existing.id
@@ -38,7 +35,8 @@ export async function openItem(db: Conn, item: OpenItem, now = new Date()): Prom
       .where({ id: item.clientId })
       .first('responseEmergencyHours', 'responseStandardHours')
     const hours = item.severity === 'emergency' ? c.responseEmergencyHours : c.responseStandardHours
-    dueBy = new Date((item.openedAt ?? now).getTime() + hours * 3_600_000)
+    // Contract hours are elapsed hours: across a clock change the local due time moves by an hour.
+    dueBy = dueAfter(item.openedAt ?? now, hours)
   }
   try {
     const [id] = await db('queueItems').insert({
@@ -52,14 +50,15 @@ export async function openItem(db: Conn, item: OpenItem, now = new Date()): Prom
       severity: item.severity,
       state: 'open',
       openedAt: item.openedAt ?? now,
-      dueBy: dueBy ?? new Date(now.getTime() + 36 * 3_600_000),
+      dueBy: dueBy ?? dueAfter(now, 36),
       summary: item.summary.slice(0, 255),
     })
     return id
   } catch (err) {
-    // Opened at the same moment elsewhere (the job and a new report): that item is the one.
+    // Opened at the same moment elsewhere (the job and a new report): that item is the one. A locking
+    // read: a plain one inside a transaction sees only what was committed before its first read.
     if (!isDuplicate(err)) throw err
-    return (await db('queueItems').where({ openKey }).first('id')).id
+    return (await db('queueItems').where({ openKey }).forShare().first('id')).id
   }
 }
 
@@ -74,7 +73,7 @@ export interface CloseHow {
 }
 
 /** Closes the open or snoozed items among `ids`; their public reports leave `received` in the same commit. */
-export async function closeItems(db: Conn, ids: number[], how: CloseHow = {}): Promise<number[]> {
+export async function closeItems(db: Db, ids: number[], how: CloseHow = {}): Promise<number[]> {
   if (!ids.length) return []
   const now = how.now ?? new Date()
   const rows = await db('queueItems').whereIn('id', ids).whereIn('state', ACTIVE).select('id')
@@ -97,7 +96,7 @@ export async function closeItems(db: Conn, ids: number[], how: CloseHow = {}): P
  * Moves the public reports behind these items out of `received` / `in_hand`: the queue opens items only
  * for reports in those states, so a settled report stays settled. Reports already moved keep their state.
  */
-export async function settleReports(db: Conn, itemIds: number[], state: ReportState, now = new Date()) {
+export async function settleReports(db: Db, itemIds: number[], state: ReportState, now = new Date()) {
   if (!itemIds.length) return
   const reportIds = db('queueItems')
     .whereIn('id', itemIds)

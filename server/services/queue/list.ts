@@ -1,9 +1,10 @@
 // The queue as supervisors see it: waiting work with its place, client, report and score.
 import type { QueueItem, QueueKind } from '../../../shared/schemas/queue'
 import { scoreItem } from './score'
-import type { Conn } from './items'
-
-const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : d == null ? null : String(d))
+import type { Db } from '../../db'
+import { iso, isoOrNull } from '../../../shared/iso-time'
+import { localDay } from '../../../shared/local-time'
+import { config } from '../../config'
 
 export interface QueueFilter {
   clientId?: number
@@ -17,7 +18,7 @@ export interface QueueFilter {
 
 const STATES = { active: ['open', 'snoozed'], all: ['open', 'snoozed', 'closed'] } as const
 
-export async function listQueue(db: Conn, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {
+export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {
   const q = db('queueItems as q')
     .leftJoin('strings as s', 's.id', 'q.stringId')
     .leftJoin('stringTypes as st', 'st.id', 's.typeId')
@@ -69,7 +70,7 @@ export async function listQueue(db: Conn, f: QueueFilter, now = new Date()): Pro
   const rows = await q.limit(2000)
   const planned = await db('runStops as rs')
     .join('runs as ru', 'ru.id', 'rs.runId')
-    .where('ru.runDate', '>=', now.toISOString().slice(0, 10))
+    .where('ru.runDate', '>=', localDay(now, config.APP_TIME_ZONE))
     .whereNotNull('rs.queueItemId')
     .select('rs.queueItemId', 'ru.crewId')
   const plannedBy = new Map(planned.map((p) => [p.queueItemId as number, p.crewId as number]))
@@ -81,14 +82,14 @@ export async function listQueue(db: Conn, f: QueueFilter, now = new Date()): Pro
       severity: r.severity,
       state: r.state,
       summary: r.summary,
-      openedAt: iso(r.openedAt)!,
-      dueBy: iso(r.dueBy)!,
+      openedAt: iso(r.openedAt),
+      dueBy: iso(r.dueBy),
       hoursLeft,
       overdue: hoursLeft < 0,
       score,
       scoreParts: parts,
       why,
-      snoozedUntil: iso(r.snoozedUntil),
+      snoozedUntil: isoOrNull(r.snoozedUntil),
       snoozeReason: r.snoozeReason ?? null,
       closeReason: r.closeReason ?? null,
       mergedCount: Number(r.mergedCount ?? 0),

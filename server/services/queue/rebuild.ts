@@ -1,16 +1,16 @@
 // The whole queue brought in step with strings, forecasts, public reports and certificates. Safe to
 // run at any time: open items are keyed, so nothing is opened twice, and settled reports stay settled.
 import { wakeSnoozed } from './actions'
-import type { Conn } from './items'
+import type { Db } from '../../db'
 import { syncCertificateItems } from './certificates'
 import { syncReportItems } from './reports'
 import { syncForecastItems, syncStateItems, type StringForecastRisk } from './strings'
 
-const openCount = async (db: Conn) =>
+const openCount = async (db: Db) =>
   Number((await db('queueItems').where('state', 'open').count({ n: '*' }))[0].n)
 
 /** `risks` are the latest forecasts (the forecast job's answer). */
-export async function rebuildQueue(db: Conn, risks: StringForecastRisk[], now = new Date()) {
+export async function rebuildQueue(db: Db, risks: StringForecastRisk[], now = new Date()) {
   const before = await openCount(db)
   await wakeSnoozed(db, now)
   await syncStateItems(db, now)

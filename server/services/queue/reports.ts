@@ -2,10 +2,11 @@
 // its state moves on (fixed, not ours, duplicate) the item closes. Closing the item moves the report
 // (items.ts), so the two never disagree for long.
 import { reportOpenStates } from '../../../shared/schemas/reports'
-import { closeItems, openItem, ACTIVE, type Conn } from './items'
+import { closeItems, openItem, ACTIVE } from './items'
+import type { Db } from '../../db'
 
 /** Opens an item for each waiting report (only those in `ids` when given) that has none open. */
-export async function openReportItems(db: Conn, now = new Date(), ids?: number[]) {
+export async function openReportItems(db: Db, now = new Date(), ids?: number[]) {
   // A report without a tag is placed by the street the reporter named.
   const q = db('reports as r')
     .leftJoin('strings as s', 's.id', 'r.stringId')
@@ -45,7 +46,7 @@ export async function openReportItems(db: Conn, now = new Date(), ids?: number[]
 }
 
 /** Closes the items of reports whose state has moved on without them (set by hand, for one). */
-export async function closeSettledReportItems(db: Conn, now = new Date()) {
+export async function closeSettledReportItems(db: Db, now = new Date()) {
   const rows = await db('queueItems')
     .where('kind', 'public_report')
     .whereIn('state', ACTIVE)
@@ -58,7 +59,7 @@ export async function closeSettledReportItems(db: Conn, now = new Date()) {
   )
 }
 
-export async function syncReportItems(db: Conn, now = new Date()) {
+export async function syncReportItems(db: Db, now = new Date()) {
   await openReportItems(db, now)
   await closeSettledReportItems(db, now)
 }

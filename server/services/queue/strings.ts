@@ -3,14 +3,15 @@
 // included), and lit strings likely to go dark soon get a forecast item.
 import { stringStatusKind, type QueueKind } from '../../../shared/schemas/queue'
 import type { StringStatus } from '../../../shared/schemas/string-states'
-import { closeItems, openItem, ACTIVE, type Conn } from './items'
+import { closeItems, openItem, ACTIVE } from './items'
+import type { Db } from '../../db'
 
 /** Forecast risk that opens an item: the string may go dark within 72 burning hours. */
 export const FORECAST_DARK_P72 = 0.25
 
 const STATE_KINDS = Object.values(stringStatusKind) as QueueKind[]
 
-async function activeItems(db: Conn, stringId: number, kinds: QueueKind[]): Promise<number[]> {
+async function activeItems(db: Db, stringId: number, kinds: QueueKind[]): Promise<number[]> {
   const rows = await db('queueItems')
     .where({ stringId })
     .whereIn('kind', kinds)
@@ -24,12 +25,29 @@ async function activeItems(db: Conn, stringId: number, kinds: QueueKind[]): Prom
  * applies. Only a visit closes the public reports on a string (its crew saw it); a changed threshold
  * does not answer a reporter.
  */
-export async function syncStringQueue(db: Conn, stringId: number, visitId: number | null, now = new Date()) {
+export async function syncStringQueue(db: Db, stringId: number, visitId: number | null, now = new Date()) {
   const s = await db('strings as s')
     .join('sites as si', 'si.id', 's.siteId')
     .where('s.id', stringId)
-    .first('s.id', 's.assetTag', 's.name', 's.status', 's.lampsOut', 's.siteId', 'si.clientId')
+    .first(
+      's.id',
+      's.assetTag',
+      's.name',
+      's.status',
+      's.lampsOut',
+      's.siteId',
+      's.archivedAt',
+      'si.clientId',
+    )
   if (!s) return
+  // An archived string is no longer ours to look after: its state items close, reports stay.
+  if (s.archivedAt) {
+    const reason = 'String archived'
+    return void (await closeItems(db, await activeItems(db, stringId, [...STATE_KINDS, 'forecast_dark']), {
+      now,
+      reason,
+    }))
+  }
   const kind: QueueKind | undefined = stringStatusKind[s.status as keyof typeof stringStatusKind]
   const settled = kind
     ? STATE_KINDS.filter((k) => k !== kind)
@@ -56,9 +74,9 @@ export async function syncStringQueue(db: Conn, stringId: number, visitId: numbe
 }
 
 /** Every string whose state needs an item has one (the scheduled refresh). */
-export async function syncStateItems(db: Conn, now = new Date()) {
+export async function syncStateItems(db: Db, now = new Date()) {
   const needing = Object.keys(stringStatusKind) as StringStatus[]
-  for (const s of await db('strings').whereIn('status', needing).select('id'))
+  for (const s of await db('strings').whereIn('status', needing).whereNull('archivedAt').select('id'))
     await syncStringQueue(db, s.id, null, now)
 }
 
@@ -74,7 +92,7 @@ export interface StringForecastRisk {
 }
 
 /** Opens a forecast item for each lit or watched string likely to go dark within 72 burning hours. */
-export async function syncForecastItems(db: Conn, risks: StringForecastRisk[], now = new Date()) {
+export async function syncForecastItems(db: Db, risks: StringForecastRisk[], now = new Date()) {
   for (const r of risks) {
     // Dark, made-safe and replace-now strings are in the queue already under their own kind.
     if (r.pDark72 < FORECAST_DARK_P72 || (r.status !== 'lit' && r.status !== 'watch')) continue

@@ -1,5 +1,6 @@
 import type { EnergyClient, EnergyLine } from '../../api/energy'
-import { formatDate } from '../../dates'
+import { appTimeZone, formatDate } from '../../dates'
+import { localClock } from '../../../shared/local-time'
 
 const gb = (digits: number) =>
   new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })
@@ -31,7 +32,8 @@ const minutes = (hhmm: string) => {
 export function isLitAt(c: EnergyClient, at: Date = new Date()): boolean {
   const today = formatDate(at, 'isoDate')
   if (!c.seasonStart || !c.seasonEnd || today < c.seasonStart || today >= c.seasonEnd) return false
-  const t = at.getHours() * 60 + at.getMinutes()
+  // The town's clock, not the phone's.
+  const t = minutes(localClock(at, appTimeZone()))
   const on = minutes(c.switchOn)
   const off = minutes(c.switchOff)
   // A schedule may run past midnight (e.g. 16:00–01:00).

@@ -1,5 +1,5 @@
 import type { CrewRun } from '../../api/runs'
-import { buildPlanModel, formatClock, parseClock } from '../../../shared/routing/plan-model'
+import { buildPlanModel, formatClock, parseClock, windowFor } from '../../../shared/routing/plan-model'
 import { schedule } from '../../../shared/routing/plan-schedule'
 
 const DAY = 24 * 60
@@ -58,19 +58,6 @@ function onShift(clock: string, shiftStart: string): number {
   return t < parseClock(shiftStart) ? t + DAY : t
 }
 
-/** Same placement of a window on the shift timeline as the planner (shared/routing/plan-model.ts). */
-function windowOnShift(window: { from: string; to: string }, shiftStart: string): [number, number] {
-  const start = parseClock(shiftStart)
-  let lo = parseClock(window.from)
-  let hi = parseClock(window.to)
-  if (hi < lo) hi += DAY
-  if (hi < start) {
-    lo += DAY
-    hi += DAY
-  }
-  return [lo, hi]
-}
-
 export interface StopNote {
   /** the work cannot start within the site's access window */
   warning: string | null
@@ -83,7 +70,8 @@ export function stopNotes(run: CrewRun): StopNote[] {
     const start = onShift(s.start, run.shiftStart)
     const wait = Math.max(0, start - onShift(s.arrive, run.shiftStart))
     if (!s.window) return { warning: null, waitMinutes: wait }
-    const [lo, hi] = windowOnShift(s.window, run.shiftStart)
+    // The planner's own placement of the window on the shift timeline, so the sheet and plan agree.
+    const [lo, hi] = windowFor(s.window, parseClock(run.shiftStart))
     const outside = start < lo || start > hi
     return {
       warning: outside ? `Starts outside the access window ${s.window.from}–${s.window.to}` : null,

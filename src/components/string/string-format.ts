@@ -1,9 +1,10 @@
-// Numbers as the string page shows them; its dates go through src/dates.ts.
+// Numbers as the string page shows them, in the app's locale; its dates go through src/dates.ts.
+import { formatNumber } from '../../dates'
 
 export function hoursText(h: number | null | undefined): string {
   if (h === null || h === undefined || !Number.isFinite(h)) return '—'
   if (h < 10) return `${h.toFixed(1)} h`
-  return `${Math.round(h).toLocaleString()} h`
+  return `${formatNumber(h)} h`
 }
 
 export function chanceText(p: number): string {
@@ -14,7 +15,7 @@ export function chanceText(p: number): string {
 
 /** At most `digits` decimals, trailing zeros dropped: 12 V, 12.78 V, 0.5 A. */
 export function num(n: number, digits = 1): string {
-  return n.toLocaleString(undefined, { maximumFractionDigits: digits })
+  return formatNumber(n, digits)
 }
 
 export function plural(n: number, one: string, many = `${one}s`): string {

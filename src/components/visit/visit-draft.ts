@@ -1,5 +1,4 @@
 // The visit form as typed, and how it becomes the isolation and visit requests. Pure: no Vue, no I/O.
-import dayjs from 'dayjs'
 import {
   isolateSteps,
   restoreSteps,
@@ -7,20 +6,15 @@ import {
   type VisitBody,
 } from '../../../shared/schemas/visits'
 import { NO_ISOLATION_MESSAGE, NO_ISOLATION_MIN, countErrors, isRelamping } from '../../../shared/visit-rules'
+import { localStamp } from '../../dates'
 
 // The draft's shape belongs to the phone's store (offline/), which keeps it in the outbox.
 import type { DraftPhoto, StepStamp, VisitDraft } from '../../offline/visit-record'
 export type { DraftPhoto, StepStamp, VisitDraft }
 
-/** A v4 UUID. randomUUID exists only in secure contexts (https, localhost); getRandomValues everywhere. */
-export function newKey(): string {
-  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
-  const b = crypto.getRandomValues(new Uint8Array(16))
-  b[6] = (b[6] & 0x0f) | 0x40
-  b[8] = (b[8] & 0x3f) | 0x80
-  const h = Array.from(b, (x) => x.toString(16).padStart(2, '0')).join('')
-  return `${h.slice(0, 8)}-${h.slice(8, 12)}-${h.slice(12, 16)}-${h.slice(16, 20)}-${h.slice(20)}`
-}
+// One way to make an Idempotency-Key for every keyed write; re-exported for the form's callers.
+import { newKey } from '../../api/idempotency-key'
+export { newKey }
 
 export function newDraft(stringId: number, assetTag: string): VisitDraft {
   return {
@@ -42,13 +36,8 @@ export function newDraft(stringId: number, assetTag: string): VisitDraft {
     testerId: '',
     steps: {},
     photos: [],
-    startedAt: stamp(),
+    startedAt: localStamp(),
   }
-}
-
-/** Local time with its UTC offset, as the isolation record wants it. */
-export function stamp(): string {
-  return dayjs().format('YYYY-MM-DDTHH:mm:ssZ')
 }
 
 export function isolatedBeforeWork(d: VisitDraft): boolean {

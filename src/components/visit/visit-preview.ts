@@ -1,6 +1,8 @@
 // What a visit does to a string's recorded condition, computed on the phone with the same engine the
 // server uses (shared/string-status.ts), so the preview holds offline and matches the server's answer.
 import { assess, forecast, lifePhrase, percent } from '../../../shared/engine'
+import { localDay } from '../../../shared/local-time'
+import { appTimeZone } from '../../dates'
 import {
   engineInput,
   forecastInput,
@@ -66,7 +68,7 @@ export function previewForecast(
     forecastInput(d.type, cond, {
       lampAgeHours: d.lampAgeHours,
       burnHoursPerDay: d.schedule.burnHoursPerDay,
-      startDate: today.toISOString().slice(0, 10),
+      startDate: localDay(today, appTimeZone()),
       trials: 600,
       seed: d.id,
     }),
@@ -76,4 +78,9 @@ export function previewForecast(
     dark: fc.dates?.medianDark ?? null,
     pDark72: fc.pDark.find((p) => p.hours === 72)?.p ?? 0,
   }
+}
+
+/** "no lamps out", "1 lamp out", "3 lamps out" */
+export function lampsOutText(n: number): string {
+  return n === 0 ? 'no lamps out' : n === 1 ? '1 lamp out' : `${n} lamps out`
 }

@@ -6,7 +6,8 @@ import { runsApi, type MyRun } from '../../api/runs'
 import { cachedRun, saveRun } from '../../offline/run-cache'
 import { isUnreachable, prefetchStrings } from '../../offline/string-cache'
 import { useAuthStore } from '../../stores/auth'
-import { today } from '../../dates'
+import { addDays, appTimeZone, today } from '../../dates'
+import { shiftDate } from '../../../shared/local-time'
 
 export function useRun() {
   const auth = useAuthStore()
@@ -22,10 +23,16 @@ export function useRun() {
 
   async function fromPhone(userId: number): Promise<{ run: MyRun; savedAt: string } | null> {
     if (date.value) return cachedRun(userId, date.value)
-    // "Tonight" offline: the server's day is UTC, the phone's may differ around midnight.
-    return (
-      (await cachedRun(userId, today())) ?? (await cachedRun(userId, new Date().toISOString().slice(0, 10)))
+    // "Tonight" offline: after midnight on a shift that crosses it, still yesterday's run.
+    const yesterday = addDays(today(), -1)
+    const prev = await cachedRun(userId, yesterday)
+    const shift = prev?.run.run
+    if (
+      shift &&
+      shiftDate(new Date(), { start: shift.shiftStart, end: shift.shiftEnd }, appTimeZone()) === yesterday
     )
+      return prev
+    return cachedRun(userId, today())
   }
 
   async function load(): Promise<void> {

@@ -1,10 +1,10 @@
 // The visit form's state: the string (from the server or the phone's copy), the draft kept in
 // IndexedDB as it is typed, the engine preview, and saving through the outbox.
 import { computed, ref, shallowRef, watch } from 'vue'
-import dayjs from 'dayjs'
 import { conditionOf, shuntedLampCount, type Condition } from '../../../shared/string-status'
 import { applyVisit } from '../../../shared/visit-rules'
 import { ApiError } from '../../api/http'
+import { formatDate } from '../../dates'
 import type { StringDetail } from '../../api/strings'
 import {
   checkDraft,
@@ -47,7 +47,7 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     try {
       const loaded = await loadString(stringId)
       detail.value = loaded.detail
-      savedAt.value = loaded.savedAt ? dayjs(loaded.savedAt).format('D MMM HH:mm') : null
+      savedAt.value = loaded.savedAt ? formatDate(loaded.savedAt, 'dayMonthTime') : null
       // Only the first load reopens a refused save; "Log another visit" starts clean.
       const edited = reopen ? await draftFromOutbox(reopen, stringId) : null
       reopen = null

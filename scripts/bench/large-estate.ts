@@ -1,0 +1,103 @@
+// For the benchmarks that need a large register: a throw-away database (in .bench-data, or
+// BENCH_DATA_DIR) holding the demo town copied until it has 20,000 strings, and the real app over
+// HTTP on a free port.
+import { openDatabase, prepareDatabase, throwAwayDatabaseUrl } from '../setup'
+import { createDb, type Db } from '../../server/db'
+import { createApp } from '../../server/app'
+import { loadConfig } from '../../server/config'
+import type { Mailer } from '../../server/mail/mailer'
+import { rng } from '../../seeds/demo/geo'
+
+export const TARGET_STRINGS = 20_000
+
+export interface BenchApp {
+  knex: Db
+  /** Strings in the database once built. */
+  count: number
+  base: string
+  token(email: string): Promise<string>
+  close(): Promise<void>
+}
+
+/** Copies of the demo town tiled over a wider area, as a contractor serving many towns would have. */
+async function tileStrings(knex: Db, target: number): Promise<void> {
+  const base = await knex('strings').select('*')
+  const r = rng(99)
+  let n = base.length
+  for (let copy = 1; n < target; copy++) {
+    const dLat = Math.floor(copy / 8) * 0.03
+    const dLng = (copy % 8) * 0.05
+    const rows = base.slice(0, target - n).map((s) => {
+      const { id: _id, createdAt: _c, updatedAt: _u, ...rest } = s
+      return {
+        ...rest,
+        assetTag: `${s.assetTag}-${copy}`,
+        lat: s.lat + dLat,
+        lng: s.lng + dLng,
+        line: s.line ? JSON.stringify(s.line) : null,
+        status: r.pick(['lit', 'lit', 'lit', 'watch', 'replace', 'dark']),
+      }
+    })
+    for (let i = 0; i < rows.length; i += 500) await knex('strings').insert(rows.slice(i, i + 500))
+    n += rows.length
+  }
+}
+
+/** The bench database freshly seeded, filled to `strings` strings (0: the demo as it is), and the app. */
+export async function openBenchApp(strings = TARGET_STRINGS): Promise<BenchApp> {
+  // The benchmark wipes its database: an external one only when its name says so.
+  throwAwayDatabaseUrl(process.env)
+  const dir = process.env.BENCH_DATA_DIR ?? '.bench-data'
+  const db = await openDatabase({
+    dir,
+    port: Number(process.env.DB_BENCH_PORT ?? 3309),
+    name: 'lampwright_bench',
+  })
+  try {
+    await prepareDatabase(db.url, { seed: 'always' })
+    const knex = createDb(db.url)
+    if (strings) await tileStrings(knex, strings)
+    const count = Number((await knex('strings').count({ n: '*' }))[0].n)
+    const config = loadConfig({
+      ...process.env,
+      DATABASE_URL: db.url,
+      JWT_SECRET: 'bench-secret-long-enough-0123456789',
+      LOG_LEVEL: 'silent',
+    })
+    const mailer: Mailer = { send: async () => ({ id: 0, sent: false }) }
+    const app = createApp(
+      { db: knex, config, jwtSecret: config.JWT_SECRET!, mailer, uploadDir: `${dir}/uploads` },
+      { clientDir: '/none' },
+    )
+    const server = app.listen(0)
+    const base = `http://127.0.0.1:${(server.address() as { port: number }).port}/api/v1`
+    return {
+      knex,
+      count,
+      base,
+      async token(email) {
+        const res = await fetch(`${base}/auth/sign-in`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ email, password: 'lampwright' }),
+        })
+        return ((await res.json()) as { token: string }).token
+      },
+      async close() {
+        server.close()
+        await knex.destroy()
+        if (db.startedHere) await db.stop()
+      },
+    }
+  } catch (err) {
+    if (db.startedHere) await db.stop()
+    throw err
+  }
+}
+
+/** p50 and p95 of a list of timings. */
+export function percentiles(times: number[]): { p50: number; p95: number } {
+  const s = [...times].sort((a, b) => a - b)
+  const p = (q: number) => s[Math.min(s.length - 1, Math.floor(q * s.length))]
+  return { p50: p(0.5), p95: p(0.95) }
+}

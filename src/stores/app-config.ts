@@ -2,6 +2,7 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import { configApi, type AppConfig } from '../api/config'
 import { setDateSettings } from '../dates'
+import { applyLocale } from '../locale-packs'
 import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE } from '../../shared/local-time'
 
 const FALLBACK: AppConfig = {
@@ -29,6 +30,7 @@ export const useAppConfigStore = defineStore('app-config', () => {
     try {
       config.value = { ...FALLBACK, ...(await configApi.get()) }
       setDateSettings(config.value)
+      await applyLocale(config.value.locale)
     } catch {
       // Without config the app still works; demo helpers simply stay hidden.
       pending = null

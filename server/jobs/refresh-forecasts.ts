@@ -2,13 +2,15 @@
 import type { Db } from '../db'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { loadType } from '../services/strings'
-import { stringForecast } from '../services/string-engine'
+import { stringForecastRequest } from '../services/string-engine'
+import { forecastManyInPool } from '../workers/heavy-jobs'
 import { forecastInstant, localDay } from '../../shared/local-time'
 import { clientZones } from '../services/zones'
 import type { StringForecastRisk } from '../services/queue/strings'
 
 /** Fewer trials than the string page: enough for a queue threshold, fast for a whole town. */
 const JOB_TRIALS = 400
+const BATCH = 200
 
 export async function refreshForecasts(db: Db, now = new Date()) {
   const rows = await db('strings as s')
@@ -36,24 +38,32 @@ export async function refreshForecasts(db: Db, now = new Date()) {
   const zones = await clientZones(db)
   const out: StringForecastRisk[] = []
   const updates: { id: number; at: Date | null }[] = []
+  const requests = []
   for (const r of rows) {
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
-    const type = types.get(r.typeId)!
     const burn = burnHoursPerDay(r.switchOn, r.switchOff)
-    const zone = zones.get(r.clientId)!
-    const fc = stringForecast(type, r, burn, localDay(now, zone), JOB_TRIALS)
-    const p72 = fc.pDark.find((p) => p.hours === 72)?.p ?? 0
-    out.push({
-      id: r.id,
-      assetTag: r.assetTag,
-      status: r.status,
-      siteId: r.siteId,
-      clientId: r.clientId,
-      pDark72: p72,
-      burnHoursPerDay: burn,
+    requests.push(
+      stringForecastRequest(types.get(r.typeId)!, r, burn, localDay(now, zones.get(r.clientId)!), JOB_TRIALS),
+    )
+  }
+  // The forecasts themselves run on the worker pool, a batch at a time, never on the event loop.
+  for (let i = 0; i < rows.length; i += BATCH) {
+    const results = await forecastManyInPool(requests.slice(i, i + BATCH))
+    results.forEach((fc, k) => {
+      const r = rows[i + k]
+      const burn = burnHoursPerDay(r.switchOn, r.switchOff)
+      out.push({
+        id: r.id,
+        assetTag: r.assetTag,
+        status: r.status,
+        siteId: r.siteId,
+        clientId: r.clientId,
+        pDark72: fc.pDark72,
+        burnHoursPerDay: burn,
+      })
+      const at = fc.medianDark ? forecastInstant(fc.medianDark, r.switchOn, zones.get(r.clientId)!) : null
+      updates.push({ id: r.id, at })
     })
-    const median = fc.dates?.medianDark
-    updates.push({ id: r.id, at: median ? forecastInstant(median, r.switchOn, zone) : null })
   }
   // One statement per 200 strings rather than one per string.
   for (let i = 0; i < updates.length; i += 200) {

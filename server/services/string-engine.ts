@@ -18,21 +18,24 @@ export function stringAssessment(type: StringType, s: StringRecord) {
   return assess(engineInput(type, conditionOf(s), type.supplyVolts))
 }
 
-/** The engine's forecast for a string as recorded now; seeded by the string's id so it is stable. */
-export function stringForecast(
+/** The engine's forecast request for a string as recorded now; seeded by the string's id so it is stable. */
+export function stringForecastRequest(
   type: StringType,
   s: StringRecord,
   burnHoursPerDay: number,
   startDate: string,
   trials = 2000,
 ) {
-  return forecast(
-    forecastInput(type, conditionOf(s), {
-      lampAgeHours: s.lampAgeHours,
-      burnHoursPerDay,
-      startDate,
-      trials,
-      seed: s.id,
-    }),
-  )
+  return forecastInput(type, conditionOf(s), {
+    lampAgeHours: s.lampAgeHours,
+    burnHoursPerDay,
+    startDate,
+    trials,
+    seed: s.id,
+  })
+}
+
+/** The engine's forecast for a string as recorded now (the string page's, 2,000 trials). */
+export function stringForecast(...args: Parameters<typeof stringForecastRequest>) {
+  return forecast(stringForecastRequest(...args))
 }

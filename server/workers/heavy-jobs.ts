@@ -18,6 +18,8 @@ export interface JobOwner {
 
 // The largest allowed forecast takes about a second on one core; the limit leaves room for a slow host.
 const FORECAST_TIMEOUT_MS = 15_000
+// A batch of 200 job forecasts at 400 trials takes about a second on one core.
+const FORECAST_BATCH_TIMEOUT_MS = 60_000
 // Beyond the search's own time limit: checking a 1,000-stop matrix, neighbour lists, the answer.
 const TOUR_GRACE_MS = 3_000
 // The largest plan (50 crews, 500 items) takes about 2 s on one core.
@@ -88,4 +90,11 @@ const REGISTER_READ_TIMEOUT_MS = 60_000
 /** An import's file parsed and checked off the event loop; the caller has checked its size. */
 export function readRegisterInPool<T>(input: unknown, owner: JobOwner): Promise<T> {
   return runJob('registerRead', input, REGISTER_READ_TIMEOUT_MS, owner)
+}
+
+/** A batch of forecasts for the scheduled queue job (no user waits on it, so no job slot). */
+export function forecastManyInPool(
+  requests: ForecastRequest[],
+): Promise<{ pDark72: number; medianDark: string | null }[]> {
+  return runInPool('forecastMany', requests, { timeoutMs: FORECAST_BATCH_TIMEOUT_MS })
 }

@@ -21,7 +21,7 @@ try {
   // not Linux: the threads keep the process's priority
 }
 
-export type TaskName = 'forecast' | 'solve' | 'plan' | 'registerRead'
+export type TaskName = 'forecast' | 'forecastMany' | 'solve' | 'plan' | 'registerRead'
 
 export interface TaskError {
   status: number
@@ -35,6 +35,16 @@ export type TaskReply = { ok: unknown } | { err: TaskError }
 const tasks: Record<TaskName, (input: unknown) => TaskReply | Promise<TaskReply>> = {
   // Validated on the event loop already: a forecast request is at most 50 lamp classes.
   forecast: (input) => ({ ok: forecast(input as ForecastRequest) }),
+  // The queue job's whole-town forecasts: only what the job keeps of each (72 h risk, median date).
+  forecastMany: (input) => ({
+    ok: (input as ForecastRequest[]).map((req) => {
+      const fc = forecast(req)
+      return {
+        pDark72: fc.pDark.find((p) => p.hours === 72)?.p ?? 0,
+        medianDark: fc.dates?.medianDark ?? null,
+      }
+    }),
+  }),
   // A 1,000-stop matrix is a million numbers: checking them is work too, so it happens here.
   solve: (input) => {
     const parsed = tourRequestSchema.safeParse(input)

@@ -5,7 +5,7 @@ import { loadType } from '../services/strings'
 import { stringForecastRequest } from '../services/string-engine'
 import { forecastManyInPool } from '../workers/heavy-jobs'
 import { forecastInstant, localDay } from '../../shared/local-time'
-import { clientZones } from '../services/zones'
+import { config } from '../config'
 import type { StringForecastRisk } from '../services/queue/strings'
 
 /** Fewer trials than the string page: enough for a queue threshold, fast for a whole town. */
@@ -32,26 +32,26 @@ export async function refreshForecasts(db: Db, now = new Date()) {
       'si.clientId',
       'c.switchOn',
       'c.switchOff',
+      'c.timeZone',
     )
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
   // Each client's own calendar: its "today" and the local switch-on time of the forecast date.
-  const zones = await clientZones(db)
-  const out: StringForecastRisk[] = []
-  const updates: { id: number; at: Date | null }[] = []
-  const requests = []
+  const jobs = []
   for (const r of rows) {
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
+    const zone: string = r.timeZone || config.APP_TIME_ZONE
     const burn = burnHoursPerDay(r.switchOn, r.switchOff)
-    requests.push(
-      stringForecastRequest(types.get(r.typeId)!, r, burn, localDay(now, zones.get(r.clientId)!), JOB_TRIALS),
-    )
+    const request = stringForecastRequest(types.get(r.typeId)!, r, burn, localDay(now, zone), JOB_TRIALS)
+    jobs.push({ r, zone, burn, request })
   }
+  const out: StringForecastRisk[] = []
+  const updates: { id: number; at: Date | null }[] = []
   // The forecasts themselves run on the worker pool, a batch at a time, never on the event loop.
-  for (let i = 0; i < rows.length; i += BATCH) {
-    const results = await forecastManyInPool(requests.slice(i, i + BATCH))
+  for (let i = 0; i < jobs.length; i += BATCH) {
+    const batch = jobs.slice(i, i + BATCH)
+    const results = await forecastManyInPool(batch.map((j) => j.request))
     results.forEach((fc, k) => {
-      const r = rows[i + k]
-      const burn = burnHoursPerDay(r.switchOn, r.switchOff)
+      const { r, zone, burn } = batch[k]
       out.push({
         id: r.id,
         assetTag: r.assetTag,
@@ -61,8 +61,7 @@ export async function refreshForecasts(db: Db, now = new Date()) {
         pDark72: fc.pDark72,
         burnHoursPerDay: burn,
       })
-      const at = fc.medianDark ? forecastInstant(fc.medianDark, r.switchOn, zones.get(r.clientId)!) : null
-      updates.push({ id: r.id, at })
+      updates.push({ id: r.id, at: fc.medianDark ? forecastInstant(fc.medianDark, r.switchOn, zone) : null })
     })
   }
   // One statement per 200 strings rather than one per string.

@@ -5,8 +5,7 @@ import { config } from '../config'
 
 /** Every client's zone by id; clients without one (or before the column exists) follow `fallback`. */
 export async function clientZones(db: Db, fallback = config.APP_TIME_ZONE): Promise<Map<number, string>> {
-  // `select *` so this reads time_zone where the column exists and still works where it does not.
-  const rows: { id: number; timeZone?: string | null }[] = await db('clients').select('*')
+  const rows: { id: number; timeZone: string | null }[] = await db('clients').select('id', 'timeZone')
   return new Map(rows.map((r) => [r.id, r.timeZone || fallback]))
 }
 
@@ -17,6 +16,8 @@ export async function clientZone(
   fallback = config.APP_TIME_ZONE,
 ): Promise<string> {
   if (!clientId) return fallback
-  const row: { timeZone?: string | null } | undefined = await db('clients').where({ id: clientId }).first('*')
+  const row: { timeZone: string | null } | undefined = await db('clients')
+    .where({ id: clientId })
+    .first('timeZone')
   return row?.timeZone || fallback
 }

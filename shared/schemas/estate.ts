@@ -166,6 +166,13 @@ export function patchOf<T extends z.ZodRawShape>(body: z.ZodObject<T>) {
   return z.object(shape).extend({ version: z.number().int().min(1) })
 }
 
+/** A kind's own defaults as its schema declares them, e.g. a new form's starting values. */
+export function schemaDefaults(body: z.ZodObject<z.ZodRawShape>): Record<string, unknown> {
+  const out: Record<string, unknown> = {}
+  for (const [k, f] of Object.entries(body.shape)) if (f instanceof z.ZodDefault) out[k] = f.parse(undefined)
+  return out
+}
+
 export const estateKinds = {
   clients: clientBody,
   sites: siteBody,

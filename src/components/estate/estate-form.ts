@@ -2,15 +2,18 @@
 import { isApiError } from '../../api/http'
 import type { EstateRow } from '../../api/estate'
 import type { KindView } from './kinds'
+import { estateKinds, schemaDefaults } from '../../../shared/schemas/estate'
 
 export type FormValues = Record<string, unknown>
 
 // A deep copy that also works on Vue's reactive proxies (structuredClone refuses them).
 const copy = <T>(x: T): T => JSON.parse(JSON.stringify(x ?? null)) as T
 
-/** The form's starting values: the row's when editing, else the kind's defaults. */
+/** The form's starting values: the row's when editing, else the schema's defaults and the kind's own. */
 export function initialValues(view: KindView, row: EstateRow | null): FormValues {
-  const v: FormValues = row ? copy(row) : copy(view.defaults)
+  const v: FormValues = row
+    ? copy(row)
+    : copy({ ...schemaDefaults(estateKinds[view.kind]), ...view.defaults })
   if (view.point) {
     v[view.point.lat] ??= null
     v[view.point.lng] ??= null

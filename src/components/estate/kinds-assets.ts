@@ -35,13 +35,8 @@ export const assetViews: KindView[] = [
     lampClasses: true,
     defaults: {
       technology: 'filament',
-      wiring: 'series',
       supplyVolts: 230,
       ratedLifeHours: 3000,
-      lifeExponent: 13,
-      weibullShape: 2.8,
-      replaceAtRatio: 1.05,
-      shuntFailProbability: 0.02,
       lampClasses: [{ label: 'lamp', count: 20, ratedVolts: 11.5, ratedAmps: 0.1, shunted: true }],
     },
   },
@@ -71,7 +66,7 @@ export const assetViews: KindView[] = [
     ],
     point: { lat: 'lat', lng: 'lng' },
     line: true,
-    defaults: { geometry: 'point' },
+    defaults: {},
   },
   {
     kind: 'crews',
@@ -93,7 +88,7 @@ export const assetViews: KindView[] = [
     ],
     point: { lat: 'depotLat', lng: 'depotLng' },
     members: true,
-    defaults: { shiftStart: '16:00', shiftEnd: '00:30', memberIds: [] },
+    defaults: { shiftStart: '16:00', shiftEnd: '00:30' },
   },
   {
     kind: 'platforms',
@@ -114,6 +109,6 @@ export const assetViews: KindView[] = [
       num('safeWorkingLoadKg', 'Safe working load (kg)', true),
       num('maxWindMs', 'Maximum wind (m/s)', true),
     ],
-    defaults: { kind: 'scissor', maxWindMs: 12.5 },
+    defaults: { kind: 'scissor' },
   },
 ]

@@ -41,10 +41,8 @@ export const placeViews: KindView[] = [
       kind: 'council',
       responseEmergencyHours: 24,
       responseStandardHours: 72,
-      switchMode: 'fixed',
       switchOn: '16:00',
       switchOff: '23:00',
-      duskOffsetMinutes: 0,
       tariffPerKwh: 0.28,
       timeZone: 'Europe/London',
     },
@@ -69,7 +67,7 @@ export const placeViews: KindView[] = [
       text('accessNote', 'Access note'),
     ],
     point: { lat: 'lat', lng: 'lng' },
-    defaults: { kind: 'street', importance: 3 },
+    defaults: { kind: 'street' },
   },
   {
     kind: 'supply-points',
@@ -88,7 +86,7 @@ export const placeViews: KindView[] = [
       pick('controlledBy', 'Controlled by', opts('timer', 'photocell', 'remote', 'manual')),
     ],
     point: { lat: 'lat', lng: 'lng' },
-    defaults: { controlledBy: 'timer' },
+    defaults: {},
   },
   {
     kind: 'circuits',

@@ -2,11 +2,13 @@
 // APP_LOCALE names them. A tag is matched whole, then by its language (fr-BE → fr); others keep en-GB.
 import dayjs from 'dayjs'
 import { Lang } from 'quasar'
+// The default pack is in the main bundle already (src/main.ts installs it before GET /config answers).
+import quasarEnGB from 'quasar/lang/en-GB.js'
 
 type Pack = { default: unknown }
 const packs: Record<string, { dates: () => Promise<Pack>; quasar: () => Promise<Pack> }> = {
-  'en-GB': { dates: () => import('dayjs/locale/en-gb.js'), quasar: () => import('quasar/lang/en-GB.js') },
-  'en-IE': { dates: () => import('dayjs/locale/en-ie.js'), quasar: () => import('quasar/lang/en-GB.js') },
+  'en-GB': { dates: () => import('dayjs/locale/en-gb.js'), quasar: async () => ({ default: quasarEnGB }) },
+  'en-IE': { dates: () => import('dayjs/locale/en-ie.js'), quasar: async () => ({ default: quasarEnGB }) },
   'en-US': { dates: () => import('dayjs/locale/en.js'), quasar: () => import('quasar/lang/en-US.js') },
   da: { dates: () => import('dayjs/locale/da.js'), quasar: () => import('quasar/lang/da.js') },
   de: { dates: () => import('dayjs/locale/de.js'), quasar: () => import('quasar/lang/de-DE.js') },

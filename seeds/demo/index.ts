@@ -27,7 +27,7 @@ async function saveDemoSettings(db: Db) {
   ])
 }
 
-export async function emptyAll(db: Db) {
+async function emptyAll(db: Db) {
   // Every table of the schema but the migrations' own, so a table added later is emptied too.
   const [rows] = await db.raw(
     "SELECT table_name AS t FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' AND table_name NOT LIKE 'knex\\_migrations%'",

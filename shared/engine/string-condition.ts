@@ -1,4 +1,5 @@
 import type { LampClassInput } from '../schemas/engine'
+import { seriesShare } from './series-share'
 
 export type Wiring = 'series' | 'parallel'
 
@@ -31,10 +32,7 @@ export function stringCondition(
     const ratios = lamps.map((c, i) => (inCircuit[i] > 0 ? supplyVolts / c.ratedVolts : 0))
     return { dark, fuseFailed, inCircuit, ratios }
   }
-  // Series lamps at one current share the supply in proportion to rated voltage (trade-reference §2,
-  // common practice): V_i = V_supply · V_rated,i / Σ V_rated in circuit, so every class sees the
-  // same ratio V_supply / Σ V_rated.
-  const ratedSum = lamps.reduce((s, c, i) => s + c.ratedVolts * inCircuit[i], 0)
-  const ratio = supplyVolts / ratedSum
-  return { dark, fuseFailed, inCircuit, ratios: inCircuit.map((n) => (n > 0 ? ratio : 0)) }
+  // One current through the chain, solved from each class's own rating (series-share.ts).
+  const { ratios } = seriesShare(supplyVolts, lamps, inCircuit)
+  return { dark, fuseFailed, inCircuit, ratios }
 }

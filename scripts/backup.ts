@@ -7,7 +7,8 @@ import { loadConfig } from '../server/config'
 import { createDb } from '../server/db'
 import { openDatabase } from './setup'
 import { dumpDatabase, tableStats, targetOf } from './backup/db-tools'
-import { FORMAT, pack, stageUploads, writeManifest } from './backup/archive'
+import { FORMAT, listBucket, pack, stageUploads, writeManifest } from './backup/archive'
+import { createFileStore } from '../server/files/index'
 
 const settings = loadConfig(process.env)
 const backupDir = resolve(process.env.BACKUP_DIR || 'backups')
@@ -18,9 +19,18 @@ try {
   const db = createDb(database.url)
   const tables = await tableStats(db).finally(() => db.destroy())
   dumpDatabase(target, join(staging, 'database.sql'))
-  const files = stageUploads(resolve(settings.UPLOAD_DIR), staging)
+  // Files on S3 stay in their bucket (with its own versioning and backups): the backup lists them.
+  const files = settings.S3_URL
+    ? listBucket(staging, await createFileStore(settings).list())
+    : stageUploads(resolve(settings.UPLOAD_DIR), staging)
   const createdAt = new Date().toISOString()
-  writeManifest(staging, { format: FORMAT, createdAt, database: target.database, tables, uploads: { files } })
+  writeManifest(staging, {
+    format: FORMAT,
+    createdAt,
+    database: target.database,
+    tables,
+    uploads: { files, inBucket: !!settings.S3_URL },
+  })
   mkdirSync(backupDir, { recursive: true, mode: 0o700 })
   const file = join(backupDir, `lampwright-${createdAt.replace(/[:.]/g, '-')}.tar.gz`)
   pack(staging, file)

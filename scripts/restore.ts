@@ -33,8 +33,9 @@ try {
   unpack(resolve(file), staging)
   const manifest = readManifest(staging)
   loadDump(target, join(staging, 'database.sql'))
-  // Uploads: files already in UPLOAD_DIR are kept as they are.
-  cpSync(join(staging, 'uploads'), resolve(settings.UPLOAD_DIR), { recursive: true, force: false })
+  // Uploads: files already in UPLOAD_DIR are kept as they are; files on S3 stayed in their bucket.
+  if (!manifest.uploads.inBucket)
+    cpSync(join(staging, 'uploads'), resolve(settings.UPLOAD_DIR), { recursive: true, force: false })
   const restored = await tableStats(db)
   const differ = Object.entries(manifest.tables).filter(
     ([name, t]) => restored[name]?.rows !== t.rows || restored[name]?.checksum !== t.checksum,
@@ -46,7 +47,7 @@ try {
   if (differ.length) throw new Error(`${differ.length} tables differ from the backup's manifest (see above).`)
   const rows = Object.values(restored).reduce((n, t) => n + t.rows, 0)
   console.log(
-    `Restored ${Object.keys(restored).length} tables (${rows} rows, every count and checksum as in the backup of ${manifest.createdAt}) and ${manifest.uploads.files} uploaded files.`,
+    `Restored ${Object.keys(restored).length} tables (${rows} rows, every count and checksum as in the backup of ${manifest.createdAt}) and ${manifest.uploads.files} uploaded files${manifest.uploads.inBucket ? ' (kept in the S3 bucket)' : ''}.`,
   )
 } catch (err) {
   console.error(`Restore failed: ${(err as Error).message}`)

@@ -1,6 +1,7 @@
 import type { Db } from './db'
 import type { Config } from './config'
 import type { Mailer } from './mail/mailer'
+import type { FileStore } from './files/index'
 
 /** What the app needs from outside: built once by server/index.ts, or by a test. */
 export interface AppDeps {
@@ -8,7 +9,8 @@ export interface AppDeps {
   config: Config
   jwtSecret: string
   mailer: Mailer
-  uploadDir: string
+  /** Uploaded photos and documents: UPLOAD_DIR or the S3_URL bucket. */
+  files: FileStore
   /** The clock; unset = the real one. Tests set it to fake a time of day (never a request's input). */
   now?: () => Date
 }

@@ -1,7 +1,7 @@
 // Reads config, builds the app and listens: the only file that opens the server's ports.
 import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs'
 import { randomBytes } from 'node:crypto'
-import { join, resolve } from 'node:path'
+import { join } from 'node:path'
 import type { Server } from 'node:http'
 import { pathToFileURL } from 'node:url'
 import { loadConfig, type Config } from './config'
@@ -11,6 +11,7 @@ import { createMailer, createTransport } from './mail/mailer'
 import { startFakeSmtp } from './mail/fake-smtp'
 import { logger } from './logger'
 import { startJobs } from './jobs/schedule'
+import { createFileStore } from './files/index'
 import { closeWorkers, warmWorkers } from './workers/pool'
 import { activeDemoAccounts, ensureFirstAdmin, firstAdminLine } from './services/first-admin'
 import { portError, reportStartError, StartError } from './start-errors'
@@ -57,9 +58,8 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env) {
           `Warning: the demo accounts (${demo.join(', ')}) are active and their password is published: deactivate them under Users.`,
         )
     }
-    const uploadDir = resolve(config.UPLOAD_DIR)
-    mkdirSync(uploadDir, { recursive: true })
-    const app = createApp({ db, config, jwtSecret: jwtSecret(config), mailer, uploadDir })
+    const files = createFileStore(config)
+    const app = createApp({ db, config, jwtSecret: jwtSecret(config), mailer, files })
     const server = await listen(app, config.PORT)
     const addr = server.address()
     const port = typeof addr === 'object' && addr ? addr.port : config.PORT

@@ -13,7 +13,8 @@ export interface Manifest {
   database: string
   /** Row count and CHECKSUM TABLE per table, read just before the dump. */
   tables: Record<string, TableStat>
-  uploads: { files: number }
+  /** inBucket: the files are on S3 and `uploads/bucket-list.json` names them. */
+  uploads: { files: number; inBucket?: boolean }
 }
 
 export function writeManifest(dir: string, m: Manifest): void {
@@ -26,6 +27,13 @@ export function readManifest(dir: string): Manifest {
   const m = JSON.parse(readFileSync(file, 'utf8')) as Manifest
   if (m.format !== FORMAT) throw new Error(`Unknown backup format "${String(m.format)}".`)
   return m
+}
+
+/** Writes the names of the files kept on S3; returns how many. */
+export function listBucket(staging: string, names: string[]): number {
+  mkdirSync(join(staging, 'uploads'), { recursive: true })
+  writeFileSync(join(staging, 'uploads', 'bucket-list.json'), `${JSON.stringify(names)}\n`)
+  return names.length
 }
 
 /** Copies the upload folder into the staging folder; returns how many files it held. */

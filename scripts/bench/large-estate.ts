@@ -7,6 +7,7 @@ import { createApp } from '../../server/app'
 import { loadConfig } from '../../server/config'
 import type { Mailer } from '../../server/mail/mailer'
 import { rng } from '../../seeds/demo/geo'
+import { localFileStore } from '../../server/files/local-store'
 
 export const TARGET_STRINGS = 20_000
 
@@ -66,7 +67,7 @@ export async function openBenchApp(strings = TARGET_STRINGS): Promise<BenchApp> 
     })
     const mailer: Mailer = { send: async () => ({ id: 0, sent: false }) }
     const app = createApp(
-      { db: knex, config, jwtSecret: config.JWT_SECRET!, mailer, uploadDir: `${dir}/uploads` },
+      { db: knex, config, jwtSecret: config.JWT_SECRET!, mailer, files: localFileStore(`${dir}/uploads`) },
       { clientDir: '/none' },
     )
     const server = app.listen(0)

@@ -27,7 +27,7 @@ export const photoRoutes: RouteDef[] = [
       const files = Array.isArray(req.files) ? req.files : []
       const { created, items } = await savePhotos(
         deps.db,
-        deps.uploadDir,
+        deps.files,
         params.id,
         user,
         files,
@@ -55,7 +55,7 @@ export const photoRoutes: RouteDef[] = [
     summary: `A photo (at most 2048 px). ${cacheNote}`,
     params: idParam,
     responseType: 'image/jpeg',
-    handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'file', res),
+    handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.files, params.id, 'file', res),
   }),
   defineRoute({
     method: 'get',
@@ -65,6 +65,6 @@ export const photoRoutes: RouteDef[] = [
     summary: `A photo's thumbnail (320 px). ${cacheNote}`,
     params: idParam,
     responseType: 'image/jpeg',
-    handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.uploadDir, params.id, 'thumb', res),
+    handler: ({ params, deps, res }) => sendPhoto(deps.db, deps.files, params.id, 'thumb', res),
   }),
 ]

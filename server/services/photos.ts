@@ -1,9 +1,9 @@
-// Visit photos: checked, re-encoded without metadata, stored under random names, listed and served.
+// Visit photos: checked, re-encoded without metadata, stored under random names in the file store
+// (local folder or S3 bucket), listed and served.
 import { randomUUID } from 'node:crypto'
-import { mkdir, rm, writeFile } from 'node:fs/promises'
-import { join, resolve } from 'node:path'
 import type { Response } from 'express'
 import type { Db } from '../db'
+import type { FileStore } from '../files/index'
 import { badRequest, forbidden, notFound } from '../errors'
 import type { PhotoItem } from '../../shared/schemas/photos'
 import { checkImage, type AcceptedMime } from './photos/checks'
@@ -84,7 +84,7 @@ export async function listPhotos(db: Db, visitId: number): Promise<PhotoItem[]> 
  */
 export async function savePhotos(
   db: Db,
-  uploadDir: string,
+  store: FileStore,
   visitId: number,
   by: Uploader,
   files: UploadedFile[],
@@ -105,19 +105,16 @@ export async function savePhotos(
     prepared.push({ meta, encoded, fileName: `${randomUUID()}.jpg`, thumbName: `${randomUUID()}.jpg` })
   }
 
-  const dir = resolve(uploadDir)
   const written: string[] = []
-  const removeWritten = () => Promise.all(written.map((path) => rm(path, { force: true })))
+  const removeWritten = () => Promise.all(written.map((name) => store.remove(name)))
   try {
-    await mkdir(dir, { recursive: true })
     for (const p of prepared) {
       for (const [name, bytes] of [
         [p.fileName, p.encoded.full],
         [p.thumbName, p.encoded.thumb],
       ] as const) {
-        const path = join(dir, name)
-        written.push(path)
-        await writeFile(path, bytes, { flag: 'wx' })
+        written.push(name)
+        await store.put(name, bytes, 'image/jpeg')
       }
     }
     const { created, result } = await writeOnce(db, {
@@ -172,29 +169,10 @@ async function insertPhotos(
 }
 
 /** Sends the stored JPEG (or its thumbnail) of one photo; cached privately since URLs never change. */
-export async function sendPhoto(
-  db: Db,
-  uploadDir: string,
-  id: number,
-  kind: 'file' | 'thumb',
-  res: Response,
-) {
+export async function sendPhoto(db: Db, files: FileStore, id: number, kind: 'file' | 'thumb', res: Response) {
   const row = await db('photos').where({ id }).first('fileName', 'thumbName')
   if (!row) throw notFound('Photo')
-  const name = kind === 'file' ? row.fileName : row.thumbName
-  await new Promise<void>((done, fail) => {
-    res.sendFile(
-      name,
-      {
-        root: resolve(uploadDir),
-        cacheControl: false,
-        dotfiles: 'deny',
-        headers: { 'Cache-Control': 'private, max-age=86400', 'Content-Type': 'image/jpeg' },
-      },
-      (err) => {
-        if (!err || res.headersSent) done()
-        else fail((err as NodeJS.ErrnoException).code === 'ENOENT' ? notFound('Photo file') : err)
-      },
-    )
-  })
+  const bytes = await files.get(kind === 'file' ? row.fileName : row.thumbName)
+  if (!bytes) throw notFound('Photo file')
+  res.set({ 'Cache-Control': 'private, max-age=86400', 'Content-Type': 'image/jpeg' }).send(bytes)
 }

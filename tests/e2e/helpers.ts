@@ -13,6 +13,7 @@ import { createDb, type Db } from '../../server/db'
 import { createApp } from '../../server/app'
 import { createMailer, createTransport } from '../../server/mail/mailer'
 import { startFakeSmtp } from '../../server/mail/fake-smtp'
+import { localFileStore } from '../../server/files/local-store'
 
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium'
 export const CHROMIUM_FLAGS = [
@@ -41,15 +42,13 @@ export async function startApp(): Promise<E2eApp> {
   const db = createDb(config.DATABASE_URL)
   const fake = await startFakeSmtp(db, 0)
   const mailer = createMailer(db, createTransport(undefined, fake.port), config.MAIL_FROM)
-  const uploadDir = resolve('uploads/test')
-  await mkdir(uploadDir, { recursive: true })
   const app = createApp(
     {
       db,
       config,
       jwtSecret: config.JWT_SECRET ?? 'e2e-secret-that-is-long-enough-0123456789',
       mailer,
-      uploadDir,
+      files: localFileStore('uploads/test'),
     },
     // Absolute: express's sendFile refuses a relative index.html path.
     { clientDir: resolve('dist') },

@@ -9,6 +9,7 @@ import { createApp } from '../../server/app'
 import { createMailer, createTransport } from '../../server/mail/mailer'
 import { startFakeSmtp } from '../../server/mail/fake-smtp'
 import type { AppDeps } from '../../server/deps'
+import { localFileStore } from '../../server/files/local-store'
 
 export interface RunningApp {
   baseUrl: string
@@ -27,7 +28,7 @@ export async function startApp(): Promise<RunningApp> {
     config,
     jwtSecret: 'e2e-secret-that-is-long-enough-0123456789',
     mailer,
-    uploadDir: 'uploads/test',
+    files: localFileStore('uploads/test'),
   }
   // Absolute: express's sendFile refuses a relative path for the index.html fallback.
   const app = createApp(deps, { clientDir: resolve('dist') })

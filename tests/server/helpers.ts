@@ -8,6 +8,7 @@ import { createMailer, createTransport } from '../../server/mail/mailer'
 import { startFakeSmtp } from '../../server/mail/fake-smtp'
 import type { AppDeps } from '../../server/deps'
 import type { Role } from '../../shared/roles'
+import { createFileStore } from '../../server/files/index'
 
 export interface TestApp {
   app: ReturnType<typeof createApp>
@@ -29,7 +30,7 @@ export async function makeTestApp(env: Record<string, string> = {}): Promise<Tes
     config,
     jwtSecret: 'test-secret-that-is-long-enough-0123456789',
     mailer,
-    uploadDir: 'uploads/test',
+    files: createFileStore({ ...config, UPLOAD_DIR: 'uploads/test' }),
   }
   const app = createApp(deps, { clientDir: '/nonexistent' })
   const tokens = new Map<Role, string>()

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { makeTestApp, type TestApp } from './helpers'
 import { jpeg } from '../fixtures/photos/build'
+import { localFileStore } from '../../server/files/local-store'
 
 let t: TestApp
 let crew: string
@@ -16,7 +17,7 @@ beforeAll(async () => {
   t = await makeTestApp()
   crew = `Bearer ${await t.token('crew')}`
   dir = await mkdtemp(join(tmpdir(), 'lampwright-keyed-'))
-  t.deps.uploadDir = dir
+  t.deps.files = localFileStore(dir)
 })
 afterAll(async () => {
   await rm(dir, { recursive: true, force: true })

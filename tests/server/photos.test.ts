@@ -10,6 +10,7 @@ import { makeTestApp, type TestApp } from './helpers'
 import { exifTime } from '../../server/services/photos/exif'
 import { jpeg, png, pngDeclaring, webp, type ExifFixture } from '../fixtures/photos/build'
 import type { Db } from '../../server/db'
+import { localFileStore } from '../../server/files/local-store'
 
 let t: TestApp
 let dir: string
@@ -19,7 +20,7 @@ const created: number[] = []
 beforeAll(async () => {
   t = await makeTestApp()
   dir = await mkdtemp(join(tmpdir(), 'lampwright-photos-'))
-  t.deps.uploadDir = dir
+  t.deps.files = localFileStore(dir)
   // A visit written by the demo crew account itself, so that account is its author.
   const crewUser = await t.db('users').where({ email: 'crew@example.org' }).first('id', 'crewId')
   visitId = (await t.db('visits').where({ userId: crewUser.id }).first('id')).id
@@ -249,7 +250,7 @@ describe('upload size limit', () => {
   let small: TestApp
   beforeAll(async () => {
     small = await makeTestApp({ UPLOAD_MAX_MB: '0.01' })
-    small.deps.uploadDir = dir
+    small.deps.files = localFileStore(dir)
   })
   afterAll(() => small.close())
 

@@ -2,7 +2,9 @@
 // A failed start says in one line what went wrong and what to do, and stops the private MariaDB
 // it started; LOG_LEVEL=debug adds the full error.
 import { openDatabase, prepareDatabase, buildClientIfStale, demoModeSetting, type Database } from './setup'
-import { startServer } from '../server/index'
+import { availableParallelism } from 'node:os'
+import { jwtSecret, startServer } from '../server/index'
+import { startCluster } from '../server/cluster'
 import { loadConfig } from '../server/config'
 import { reportStartError } from '../server/start-errors'
 import { demoAccounts, DEMO_PASSWORD } from '../seeds/demo/accounts'
@@ -12,7 +14,7 @@ const devMode = process.argv.includes('--api-only')
 process.env.DEMO_MODE = demoModeSetting(process.env)
 
 let db: Database | undefined
-let server: { port: number; close(): Promise<void> } | undefined
+let server: { port: number; workers?: number; close(): Promise<void> } | undefined
 let stopping = false
 const shutdown = async () => {
   if (stopping) return
@@ -30,7 +32,12 @@ try {
   db = await openDatabase({ dir: settings.DATA_DIR, port: settings.DB_PORT, name: 'lampwright' })
   await prepareDatabase(db.url, { seed: settings.DEMO_MODE ? 'if-fresh' : 'never' })
   if (!devMode) buildClientIfStale()
-  server = await startServer({ ...process.env, DATABASE_URL: db.url })
+  const env = { ...process.env, DATABASE_URL: db.url }
+  const workers = settings.WORKERS ?? availableParallelism()
+  if (workers > 1) {
+    jwtSecret(settings) // made once here, before the workers read it
+    server = await startCluster(env, workers)
+  } else server = await startServer(env)
 } catch (err) {
   stopping = true
   reportStartError(err)
@@ -40,7 +47,8 @@ try {
 }
 
 const config = loadConfig(process.env)
-console.log(`\nLampwright is running at http://localhost:${server.port}`)
+const processes = server.workers ? ` (${server.workers} API processes)` : ''
+console.log(`\nLampwright is running at http://localhost:${server.port}${processes}`)
 if (config.DEMO_MODE) {
   console.log(`Demo accounts (password "${DEMO_PASSWORD}"):`)
   for (const a of demoAccounts) console.log(`  ${a.role.padEnd(10)} ${a.email}`)

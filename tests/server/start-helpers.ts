@@ -5,6 +5,8 @@ import { spawn } from 'node:child_process'
 import { createDb } from '../../server/db'
 
 export interface Run {
+  /** The process id of the started script (the cluster's primary under npm start). */
+  pid: number
   output(): string
   /** Resolves with the HTTP port once the start banner is printed; rejects when the process ends first. */
   ready: Promise<number>
@@ -46,6 +48,7 @@ export function runScript(script: string, env: Record<string, string>, args: str
   })
   ready.catch(() => {})
   return {
+    pid: child.pid ?? 0,
     output: () => out,
     ready,
     exited,

@@ -64,7 +64,7 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env) {
     const addr = server.address()
     const port = typeof addr === 'object' && addr ? addr.port : config.PORT
     logger.info({ port }, 'Lampwright is listening')
-    const stopJobs = startJobs(db)
+    const stopJobs = startJobs(db, mailer, config)
     warmWorkers()
     return {
       port,

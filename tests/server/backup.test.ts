@@ -6,8 +6,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, describe, expect, it } from 'vitest'
 import { createDb, type Db } from '../../server/db'
-import { runScript } from './start-helpers'
-import { dropDatabase, emptyDatabase } from './start-helpers'
+import { dropDatabase, emptyDatabase, runScript } from './start-helpers'
 
 const RESTORED = 'lampwright_test_restore'
 const work = mkdtempSync(join(tmpdir(), 'lampwright-backup-test-'))

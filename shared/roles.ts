@@ -31,6 +31,8 @@ export const planners: readonly Role[] = ['supervisor', 'manager', 'admin']
 export const office: readonly Role[] = ['supervisor', 'manager', 'safety', 'admin']
 /** Who sign safety records: certificates and isolation reviews. */
 export const safetyOfficers: readonly Role[] = ['safety', 'admin']
+/** Who read the audit log (who changed what, when): managers, safety officers and admins. */
+export const auditReaders: readonly Role[] = ['manager', 'safety', 'admin']
 /** Who see what the client is told: the client report. */
 export const managers: readonly Role[] = ['manager', 'admin']
 /** Who enter and edit the estate: clients, sites, supply points, circuits, structures, types, strings. */

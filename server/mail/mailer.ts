@@ -1,7 +1,10 @@
-// Outgoing e-mail: every message is recorded in email_outbox, then handed to nodemailer
-// (the local mail fake in development, a real SMTP server when SMTP_URL is set).
+// Outgoing e-mail: every message is written to email_outbox first, then handed to nodemailer (the
+// local mail fake in development, a real SMTP server when SMTP_URL is set). A failed send is kept and
+// retried with backoff by the mail-retry job (server/mail/outbox.ts); the action that wrote it still succeeds.
 import nodemailer, { type Transporter } from 'nodemailer'
 import type { Db } from '../db'
+import { logger } from '../logger'
+import { attempt, deliverDue, insertClaimed, type DeliveryRound, type MailTransport } from './outbox'
 
 export interface MailMessage {
   to: string
@@ -11,8 +14,21 @@ export interface MailMessage {
   topic: string
 }
 
+export interface SendOptions {
+  /**
+   * Answer once the message is in the outbox and make the first attempt after: the caller's timing
+   * then says nothing about the message (a password reset must not reveal which addresses have accounts).
+   */
+  background?: boolean
+}
+
 export interface Mailer {
-  send(msg: MailMessage): Promise<{ id: number; sent: boolean }>
+  send(msg: MailMessage, opts?: SendOptions): Promise<{ id: number; sent: boolean }>
+  /**
+   * Attempts the messages that are due (retries, lapsed claims), or only `ids`. Absent on stand-in
+   * mailers that send nothing (benchmarks).
+   */
+  deliverDue?(opts?: { ids?: number[] }): Promise<DeliveryRound>
 }
 
 export function createTransport(smtpUrl: string | undefined, fakePort: number): Transporter {
@@ -20,28 +36,25 @@ export function createTransport(smtpUrl: string | undefined, fakePort: number): 
   return nodemailer.createTransport({ host: '127.0.0.1', port: fakePort, secure: false, ignoreTLS: true })
 }
 
-export function createMailer(db: Db, transport: Transporter, from: string): Mailer {
+export function createMailer(
+  db: Db,
+  transport: MailTransport,
+  from: string,
+  opts: { now?: () => Date } = {},
+): Mailer {
+  const now = opts.now ?? (() => new Date())
   return {
-    async send(msg) {
-      const [id] = await db('emailOutbox').insert({
-        toAddress: msg.to,
-        subject: msg.subject,
-        text: msg.text,
-        html: msg.html ?? null,
-        topic: msg.topic,
-        state: 'queued',
-      })
-      try {
-        await transport.sendMail({ from, to: msg.to, subject: msg.subject, text: msg.text, html: msg.html })
-        await db('emailOutbox').where({ id }).update({ state: 'sent', sentAt: new Date(), attempts: 1 })
-        return { id, sent: true }
-      } catch (err) {
-        // Kept in the outbox as failed; the action that wrote it still succeeds.
-        await db('emailOutbox')
-          .where({ id })
-          .update({ state: 'failed', attempts: 1, lastError: String((err as Error).message).slice(0, 500) })
+    async send(msg, sendOpts = {}) {
+      const at = now()
+      const { id, claim } = await insertClaimed(db, msg, at)
+      const row = { id, toAddress: msg.to, ...msg, html: msg.html ?? null, attempts: 0 }
+      const first = attempt(db, transport, from, row, claim, at)
+      if (sendOpts.background) {
+        first.catch((err: unknown) => logger.error({ err, id }, 'mail: first attempt not recorded'))
         return { id, sent: false }
       }
+      return { id, sent: (await first) === 'sent' }
     },
+    deliverDue: (o = {}) => deliverDue(db, transport, from, { now: now(), ids: o.ids }),
   }
 }

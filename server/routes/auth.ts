@@ -1,9 +1,13 @@
 import type { Request, Response } from 'express'
 import jwt from 'jsonwebtoken'
 import {
+  FORGOT_PASSWORD_MESSAGE,
   acceptInviteBody,
   changePasswordBody,
+  forgotPasswordBody,
+  forgotPasswordResponse,
   meResponse,
+  resetPasswordBody,
   sessionResponse,
   signInBody,
 } from '../../shared/schemas/auth'
@@ -23,6 +27,8 @@ import {
 } from '../services/users'
 import { audited } from '../services/audit'
 import { signInSucceeded, startSignInAttempt } from '../services/rate-limits'
+import { checkNewPassword } from '../services/password-policy'
+import { requestPasswordReset, resetPassword } from '../services/password-reset'
 
 // Secure whenever the request arrived over https: directly, or through a proxy trusted by TRUST_PROXY.
 const cookieOptions = (req: Request) => ({
@@ -117,6 +123,7 @@ export const authRoutes: RouteDef[] = [
       await signInSucceeded(deps.db, user.email, req.ip)
       if (body.newPassword === body.currentPassword)
         throw badRequest('password_unchanged', 'Choose a new password different from the current one.')
+      checkNewPassword(body.newPassword, user.email)
       const session = await audited(
         deps.db,
         (trx) => setPassword(trx, user.id, body.newPassword),
@@ -138,6 +145,38 @@ export const authRoutes: RouteDef[] = [
         deps.db,
         (trx) => acceptInvite(trx, body.token, body.password),
         (u) => entry(req, u.id, 'accept_invite'),
+      )
+      return startSession(deps, req, res, user)
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/forgot-password',
+    access: 'public',
+    tag: 'auth',
+    summary:
+      'E-mail a one-time link to choose a new password (same answer whether or not the account exists)',
+    body: forgotPasswordBody,
+    response: forgotPasswordResponse,
+    status: 202,
+    handler: async ({ body, req, res, deps }) => {
+      await requestPasswordReset(deps, body.email, req.ip, res)
+      return { message: FORGOT_PASSWORD_MESSAGE }
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/auth/reset-password',
+    access: 'public',
+    tag: 'auth',
+    summary: 'Choose a new password from a reset link; every other session ends',
+    body: resetPasswordBody,
+    response: sessionResponse,
+    handler: async ({ body, req, res, deps }) => {
+      const user = await audited(
+        deps.db,
+        (trx) => resetPassword(trx, body.token, body.password),
+        (u) => entry(req, u.id, 'password_reset'),
       )
       return startSession(deps, req, res, user)
     },

@@ -3,6 +3,7 @@ import { idParam } from '../../shared/schemas/common'
 import { inviteBody, userList, userPatch, userResponse } from '../../shared/schemas/auth'
 import { defineRoute, type RouteDef } from '../route-table'
 import { inviteUser, listUsers, updateUser } from '../services/users'
+import { renewInvite } from '../services/invites'
 import { audited } from '../services/audit'
 import { inviteMail } from '../mail/templates'
 
@@ -26,7 +27,11 @@ export const userRoutes: RouteDef[] = [
     response: userResponse,
     status: 201,
     handler: async ({ body, deps, user, req }) => {
-      const { user: invited, token } = await audited(
+      const {
+        user: invited,
+        token,
+        expiresAt,
+      } = await audited(
         deps.db,
         (trx) => inviteUser(trx, body),
         (r) => ({
@@ -39,7 +44,35 @@ export const userRoutes: RouteDef[] = [
         }),
       )
       // Sent after the commit: no invitation mail for a user that was never saved.
-      await deps.mailer.send(inviteMail(deps.config, invited, token, user.name))
+      await deps.mailer.send(inviteMail(deps.config, invited, token, user.name, expiresAt))
+      return { user: invited }
+    },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/users/:id/invite',
+    access: admins,
+    tag: 'users',
+    summary: 'Send the invitation again with a new link (the old one stops working)',
+    params: idParam,
+    response: userResponse,
+    handler: async ({ params, deps, user, req }) => {
+      const {
+        user: invited,
+        token,
+        expiresAt,
+      } = await audited(
+        deps.db,
+        (trx) => renewInvite(trx, params.id),
+        () => ({
+          userId: user.id,
+          action: 'invite_resend',
+          entity: 'user',
+          entityId: params.id,
+          requestId: String(req.id),
+        }),
+      )
+      await deps.mailer.send(inviteMail(deps.config, invited, token, user.name, expiresAt))
       return { user: invited }
     },
   }),

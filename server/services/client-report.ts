@@ -1,11 +1,13 @@
 // What the contractor shows the client for a period: the register's state, the work done, the
 // faults against the contract's response times, public reports and the energy used.
 import type { Db } from '../db'
-import { notFound } from '../errors'
+import { badRequest, notFound } from '../errors'
 import { energyReport } from './energy'
 import { isoDay } from '../../shared/iso-time'
 
 const DAY = 86_400_000
+/** Queue kinds that are faults the contract's response times apply to (the report and the digest). */
+export const FAULT_KINDS = ['replace_now', 'dark', 'public_report', 'rcd_failed'] as const
 const num = (v: unknown) => Number(v ?? 0)
 
 export async function clientReport(
@@ -17,6 +19,15 @@ export async function clientReport(
   if (!c) throw notFound('Client')
   const from = q.from ?? c.seasonStart ?? isoDay(now)
   const to = q.to ?? isoDay(now)
+  if (from > to)
+    throw badRequest(
+      'date_range_reversed',
+      `The period starts (${from}) after it ends (${to}): swap the dates.`,
+      {
+        from,
+        to,
+      },
+    )
   const start = new Date(`${from}T00:00:00Z`)
   const end = new Date(Date.parse(`${to}T00:00:00Z`) + DAY)
   const siteIds = db('sites').where({ clientId: c.id }).select('id')
@@ -47,7 +58,7 @@ export async function clientReport(
     .count({ n: '*' })
   const items = await db('queueItems')
     .where({ clientId: c.id })
-    .whereIn('kind', ['replace_now', 'dark', 'public_report', 'rcd_failed'])
+    .whereIn('kind', FAULT_KINDS)
     .whereBetween('openedAt', [start, end])
     .select('state', 'openedAt', 'dueBy', 'closedAt')
   const closed = items.filter((i) => i.closedAt && i.state === 'closed')

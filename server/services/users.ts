@@ -4,13 +4,24 @@ import type { Db } from '../db'
 import type { Role } from '../../shared/roles'
 import { badRequest, conflict, notFound } from '../errors'
 import { isoOrNull } from '../../shared/iso-time'
+import { checkNewPassword } from './password-policy'
 
 // OWASP password storage guidance: bcrypt work factor of at least 10.
 export const BCRYPT_COST = 11
 const INVITE_DAYS = 7
 let dummyHash: string | undefined
 
-const userColumns = ['id', 'name', 'email', 'role', 'crewId', 'active', 'invitedAt', 'lastSignInAt'] as const
+const userColumns = [
+  'id',
+  'name',
+  'email',
+  'role',
+  'crewId',
+  'active',
+  'invitedAt',
+  'lastSignInAt',
+  'passwordHash',
+] as const
 
 export interface UserRow {
   id: number
@@ -21,14 +32,17 @@ export interface UserRow {
   active: boolean
   invitedAt: string | null
   lastSignInAt: string | null
+  invitePending: boolean
 }
 
 function mapUser(r: Record<string, unknown>): UserRow {
+  const { passwordHash, ...rest } = r
   return {
-    ...(r as unknown as UserRow),
+    ...(rest as unknown as UserRow),
     active: Boolean(r.active),
     invitedAt: isoOrNull(r.invitedAt),
     lastSignInAt: isoOrNull(r.lastSignInAt),
+    invitePending: !passwordHash,
   }
 }
 
@@ -98,10 +112,13 @@ export async function checkPassword(db: Db, id: number, password: string): Promi
     throw badRequest('wrong_password', 'The current password is not right.')
 }
 
-/** A new password and a new token version: every session made with the old one ends. */
+/**
+ * A new password and a new token version: every session made with the old one ends. A pending
+ * invitation ends too (a reset by an invited user sets their first password).
+ */
 export async function setPassword(db: Db, id: number, password: string): Promise<SessionUser> {
   const passwordHash = await bcrypt.hash(password, BCRYPT_COST)
-  await db('users').where({ id }).update({ passwordHash })
+  await db('users').where({ id }).update({ passwordHash, inviteTokenHash: null })
   return revokeSessions(db, id)
 }
 
@@ -127,19 +144,23 @@ export async function inviteUser(
 ) {
   const exists = await db('users').where({ email: input.email }).first('id')
   if (exists) throw conflict('email_taken', 'A user with this e-mail already exists.')
-  const token = randomBytes(24).toString('base64url')
-  const now = new Date()
+  const { token, ...invite } = newInvite(new Date())
   const [id] = await db('users').insert({
     name: input.name,
     email: input.email,
     role: input.role,
     crewId: input.crewId ?? null,
     active: true,
-    inviteTokenHash: hashToken(token),
-    invitedAt: now,
-    inviteExpiresAt: new Date(now.getTime() + INVITE_DAYS * 86_400_000),
+    ...invite,
   })
-  return { user: await getUser(db, id), token }
+  return { user: await getUser(db, id), token, expiresAt: invite.inviteExpiresAt }
+}
+
+/** A one-time invitation link: only its hash is stored. */
+export function newInvite(now: Date) {
+  const token = randomBytes(24).toString('base64url')
+  const inviteExpiresAt = new Date(now.getTime() + INVITE_DAYS * 86_400_000)
+  return { token, inviteTokenHash: hashToken(token), invitedAt: now, inviteExpiresAt }
 }
 
 /** Sets the password of a pending invitation; run it in a transaction (the row is locked). */
@@ -151,6 +172,7 @@ export async function acceptInvite(db: Db, token: string, password: string): Pro
   if (!u || new Date(u.inviteExpiresAt) < new Date()) {
     throw badRequest('invalid_invite', 'This invitation link is not valid or has expired.')
   }
+  checkNewPassword(password, u.email)
   await db('users')
     .where({ id: u.id })
     .update({

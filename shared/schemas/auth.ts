@@ -16,15 +16,19 @@ export const signInBody = z.object({
 })
 export const sessionResponse = z.object({ user: publicUser, token: z.string() })
 export const meResponse = z.object({ user: publicUser })
+/** A new password (invitation, change, reset): at least 12 characters, like the first admin's. */
+export const NEW_PASSWORD_MIN = 12
 export const acceptInviteBody = z.object({
   token: z.string().min(20).max(200),
-  password: z.string().min(10, 'Use at least 10 characters.').max(200),
+  password: z.string().min(NEW_PASSWORD_MIN, `Use at least ${NEW_PASSWORD_MIN} characters.`).max(200),
 })
 
 export const userRow = publicUser.extend({
   active: z.boolean(),
   invitedAt: z.string().nullable(),
   lastSignInAt: z.string().nullable(),
+  /** Invited and no password set yet: the invitation can be sent again. */
+  invitePending: z.boolean(),
 })
 export const userList = z.object({ items: z.array(userRow) })
 export const inviteBody = z.object({
@@ -42,9 +46,18 @@ export const userPatch = z
   .refine((v) => Object.keys(v).length > 0, 'Nothing to change.')
 export const userResponse = z.object({ user: userRow })
 
-/** A new password for the signed-in user: at least 12 characters, like the first admin's. */
-export const NEW_PASSWORD_MIN = 12
 export const changePasswordBody = z.object({
   currentPassword: z.string().min(1).max(200),
   newPassword: z.string().min(NEW_PASSWORD_MIN, `Use at least ${NEW_PASSWORD_MIN} characters.`).max(200),
+})
+
+/** Forgot password: the answer is the same whether or not the address has an account. */
+export const forgotPasswordBody = z.object({ email: z.string().trim().toLowerCase().email().max(190) })
+export const forgotPasswordResponse = z.object({ message: z.string() })
+export const FORGOT_PASSWORD_MESSAGE =
+  'If that address has an account, a link to choose a new password is on its way. It works for one hour.'
+/** The new password is checked by the server (password_too_short, password_too_common), not here. */
+export const resetPasswordBody = z.object({
+  token: z.string().min(20).max(200),
+  password: z.string().max(200),
 })

@@ -19,4 +19,9 @@ export const authApi = {
   /** Ends every other session of the user; this device gets a fresh one in the answer's cookie. */
   changePassword: (currentPassword: string, newPassword: string) =>
     http.post<SessionResponse>('/auth/password', { currentPassword, newPassword }),
+  /** Always answers the same, whether or not the address has an account. */
+  forgotPassword: (email: string) => http.post<{ message: string }>('/auth/forgot-password', { email }),
+  /** Sets the password from a reset link and signs in on this device; every other session ends. */
+  resetPassword: (token: string, password: string) =>
+    http.post<SessionResponse>('/auth/reset-password', { token, password }),
 }

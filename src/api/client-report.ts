@@ -1,5 +1,5 @@
 import type { ClientReport } from '../../shared/schemas/client-report'
-import { http } from './http'
+import { API_BASE, http } from './http'
 
 export type { ClientReport }
 
@@ -12,4 +12,12 @@ export const clientReportApi = {
       id,
       name,
     })),
+}
+
+/** The PDF for the client, as a link the browser downloads (same-origin, with the session cookie). */
+export function clientReportPdfUrl(clientId: number, from?: string, to?: string): string {
+  const q = new URLSearchParams({ clientId: String(clientId) })
+  if (from) q.set('from', from)
+  if (to) q.set('to', to)
+  return `${API_BASE}/client-report.pdf?${q}`
 }

@@ -11,4 +11,6 @@ export const usersApi = {
   list: () => http.get<{ items: UserRecord[] }>('/users'),
   invite: (input: InviteInput) => http.post<{ user: UserRecord }>('/users', input),
   update: (id: Id, patch: UserPatch) => http.patch<{ user: UserRecord }>(`/users/${id}`, patch),
+  /** A new invitation link by mail; the old one stops working. */
+  resendInvite: (id: Id) => http.post<{ user: UserRecord }>(`/users/${id}/invite`),
 }

@@ -2,6 +2,7 @@ import { roleHome, type Role } from '../../shared/roles'
 import {
   iconCalculator,
   iconCertificates,
+  iconClock,
   iconCrews,
   iconEdit,
   iconEnergy,
@@ -47,15 +48,18 @@ export const NAV: Record<Role, NavItem[]> = {
     { to: '/estate/clients', label: 'Estate', icon: iconEstate },
     { to: '/energy', label: 'Energy', icon: iconEnergy },
     { to: '/reports', label: 'Reports', icon: iconReports },
+    { to: '/audit', label: 'Audit log', icon: iconClock },
   ],
   safety: [
     { to: '/isolations', label: 'Isolations', icon: iconIsolations },
     { to: '/certificates', label: 'Certificates', icon: iconCertificates },
+    { to: '/audit', label: 'Audit log', icon: iconClock },
   ],
   admin: [
     { to: '/users', label: 'Users', icon: iconUsers },
     { to: '/settings', label: 'Settings', icon: iconSettings },
     { to: '/estate/clients', label: 'Estate', icon: iconEstate },
+    { to: '/audit', label: 'Audit log', icon: iconClock },
   ],
 }
 

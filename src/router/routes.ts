@@ -1,5 +1,14 @@
 import type { RouteRecordRaw, RouteRecordSingleView } from 'vue-router'
-import { admins, everyone, fieldWorkers, only, planners, runFollowers, type Role } from '../../shared/roles'
+import {
+  admins,
+  auditReaders,
+  everyone,
+  fieldWorkers,
+  only,
+  planners,
+  runFollowers,
+  type Role,
+} from '../../shared/roles'
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -91,6 +100,9 @@ const privateRoutes: RouteRecordRaw[] = [
     () => import('../pages/certificates/CertificatesPage.vue'),
   ),
 
+  // managers, safety officers and admins
+  route('/audit', 'audit', 'Audit log', auditReaders, () => import('../pages/audit/AuditPage.vue')),
+
   // admin
   route('/users', 'users', 'Users', only.admin, () => import('../pages/users/UsersPage.vue')),
   route('/settings', 'settings', 'Settings', only.admin, () => import('../pages/settings/SettingsPage.vue')),
@@ -113,6 +125,18 @@ const publicRoutes: RouteRecordRaw[] = [
     () => import('../pages/auth/AcceptInvitePage.vue'),
   ),
   publicRoute('/report', 'report', 'Report a fault', () => import('../pages/report/ReportFaultPage.vue')),
+  publicRoute(
+    '/forgot-password',
+    'forgot-password',
+    'Forgot password',
+    () => import('../pages/auth/ForgotPasswordPage.vue'),
+  ),
+  publicRoute(
+    '/reset-password',
+    'reset-password',
+    'Choose a new password',
+    () => import('../pages/auth/ResetPasswordPage.vue'),
+  ),
 ]
 
 export const routes: RouteRecordRaw[] = [

@@ -63,5 +63,22 @@ export function useUserActions(onSaved: (user: UserRecord) => void) {
     })
   }
 
-  return { changeRole, toggleActive }
+  function resendInvite(user: UserRecord): void {
+    $q.dialog({
+      title: `Send the invitation to ${user.name} again?`,
+      message: `A new link goes to ${user.email}. The link in the earlier invitation stops working.`,
+      cancel: { flat: true, noCaps: true, label: 'Cancel' },
+      ok: { color: 'primary', unelevated: true, noCaps: true, label: 'Send again' },
+      persistent: true,
+    }).onOk(async () => {
+      try {
+        onSaved((await usersApi.resendInvite(user.id)).user)
+        $q.notify({ type: 'positive', message: `A new invitation is on its way to ${user.email}.` })
+      } catch (err) {
+        $q.notify({ type: 'negative', message: isApiError(err) ? err.message : 'Not sent. Try again.' })
+      }
+    })
+  }
+
+  return { changeRole, toggleActive, resendInvite }
 }

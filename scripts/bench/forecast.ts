@@ -1,8 +1,9 @@
-// Forecast benchmark: `node --import tsx scripts/bench/forecast.ts`. Targets from the engine brief:
-// 10,000 trials of a 50-lamp string ≤ 50 ms on one core; 400 strings of a demo-town-like mix at the
-// default trial count ≤ 2 s in total. Timings only: behaviour is checked in tests/shared/engine.
+// Forecast benchmark: `node --import tsx scripts/bench/forecast.ts`. Targets from the engine briefs:
+// 10,000 trials of a 50-lamp string ≤ 20 ms on one core (issue 11); 400 strings of a demo-town-like
+// mix at the default trial count ≤ 2 s in total. Timings only: behaviour is checked in
+// tests/shared/engine.
 import { pathToFileURL } from 'node:url'
-import { forecast } from '../../shared/engine'
+import { FUSE_LAMP_LIFE_EXPONENT, forecast } from '../../shared/engine'
 import type { ForecastRequest } from '../../shared/schemas/engine'
 
 export interface BenchRow {
@@ -23,8 +24,9 @@ const miniString = (failed: number): ForecastRequest => ({
   lampAgeHours: 200,
 })
 
-// Invented mix: a third catenaries with a fuse lamp, a third mini-lamp wraps, a third LED curtains,
-// with a few failures each so the cascades differ.
+// Invented mix: a third catenaries with a fuse lamp rated a little lower (its own life exponent, so
+// its rates are solved per failure), a third mini-lamp wraps, a third LED curtains, with a few
+// failures each so the cascades differ.
 function demoTown(): ForecastRequest[] {
   return Array.from({ length: 400 }, (_, i): ForecastRequest => {
     const failed = i % 4
@@ -33,7 +35,7 @@ function demoTown(): ForecastRequest[] {
         supplyVolts: 240,
         lamps: [
           { count: 19, ratedVolts: 12, ratedAmps: 0.5, failed },
-          { count: 1, ratedVolts: 12, ratedAmps: 0.5, shunted: false },
+          { count: 1, ratedVolts: 11, ratedAmps: 0.5, shunted: false, lifeExponent: FUSE_LAMP_LIFE_EXPONENT },
         ],
         ratedLifeHours: 1500,
         seed: i,
@@ -65,13 +67,13 @@ function measure(runs: number, work: () => void): { medianMs: number; cpuMs: num
 }
 
 export function runForecastBench(): BenchRow[] {
-  // Warm the JIT so the first timed run is not a compile.
-  forecast({ ...miniString(0), trials: 2000 })
+  // Warm the JIT so the timed runs are not compiles: a server forecasts all day.
+  for (let i = 0; i < 3; i++) forecast({ ...miniString(0), trials: 10000 })
   const one = measure(9, () => forecast({ ...miniString(0), trials: 10000 }))
   const town = demoTown()
   const all = measure(3, () => town.forEach((s) => forecast(s)))
   return [
-    { case: '1 string × 50 lamps, 10,000 trials', runs: 9, ...one, targetMs: 50, ok: one.cpuMs <= 50 },
+    { case: '1 string × 50 lamps, 10,000 trials', runs: 9, ...one, targetMs: 20, ok: one.cpuMs <= 20 },
     {
       case: '400 strings (mixed), 2,000 trials each',
       runs: 3,

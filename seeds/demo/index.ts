@@ -2,7 +2,7 @@
 // `now` so every screen has fresh data whenever the demo starts. It refuses a database with users
 // unless told to wipe it.
 import type { Db } from '../../server/db'
-import { stateColumns, stringStatus, type TypeSpec } from '../../shared/string-status'
+import { exposureAfter, stateColumns, stringStatus, type TypeSpec } from '../../shared/string-status'
 import { rng } from './geo'
 import { seedPeople } from './people'
 import { seedClientsAndTypes, seedPlaces } from './places'
@@ -81,6 +81,17 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
     else if (roll < 0.25 && filament) cond.fuseFailed = true
     else if (roll < 0.26) cond.isolated = true
     const assessed = stringStatus(spec, cond)
+    const installedOn = isoDay(now.getTime() - (40 + r.int(0, 10)) * 86_400_000)
+    // A few strings carry last season's lamps, near their rated life: the forecast should notice.
+    const lampAgeHours = filament ? (r.chance(0.03) ? r.int(1300, 1500) : r.int(0, 600)) : r.int(0, 8000)
+    // Their exposure: those hours at the ratio the lamps burn at now (fuse lamp intact), h × r^d.
+    const lit = { lampsOut: cond.lampsOut, fuseFailed: false, dark: false, isolated: false }
+    const exposure = exposureAfter(
+      spec,
+      lit,
+      spec.classes.map(() => 0),
+      lampAgeHours,
+    )
     rows.push({
       assetTag: p.assetTag,
       name: p.name,
@@ -92,9 +103,10 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
       lat: p.lat,
       lng: p.lng,
       line: p.line ? JSON.stringify(p.line) : null,
-      installedOn: isoDay(now.getTime() - (40 + r.int(0, 10)) * 86_400_000),
-      // A few strings carry last season's lamps, near their rated life: the forecast should notice.
-      lampAgeHours: filament ? (r.chance(0.03) ? r.int(1300, 1500) : r.int(0, 600)) : r.int(0, 8000),
+      installedOn,
+      lampAgeHours,
+      lampExposure: JSON.stringify(exposure.map((x) => Math.round(x * 100) / 100)),
+      exposureAt: now,
       ...stateColumns(cond, assessed),
     })
   }

@@ -37,20 +37,19 @@ export async function seedClientsAndTypes(db: Db, now: Date) {
     })
   }
   for (const t of typeDefs) {
-    const [id] = await db('stringTypes').insert({
-      code: t.code,
-      name: t.name,
-      technology: t.technology,
-      wiring: t.wiring,
-      supplyVolts: t.supplyVolts,
-      ratedLifeHours: t.ratedLifeHours,
-      lifeExponent: t.lifeExponent,
-      weibullShape: t.weibullShape,
-      replaceAtRatio: t.replaceAtRatio,
-      shuntFailProbability: t.shuntFailProbability,
-      lengthM: t.lengthM,
-    })
-    await db('lampClasses').insert(t.classes.map((k, i) => ({ ...k, stringTypeId: id, position: i + 1 })))
+    // Every field of the catalogue's type is a column, but its picker label and its lamp classes.
+    const { classes, label, ...row } = t
+    void label
+    const [id] = await db('stringTypes').insert(row)
+    await db('lampClasses').insert(
+      classes.map((k, i) => ({
+        ...k,
+        ratedLifeHours: k.ratedLifeHours ?? null,
+        lifeExponent: k.lifeExponent ?? null,
+        stringTypeId: id,
+        position: i + 1,
+      })),
+    )
   }
   const clientIds = Object.fromEntries(
     (await db('clients').select('id', 'kind')).map((c) => [c.kind === 'venue' ? 'venue' : 'town', c.id]),

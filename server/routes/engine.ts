@@ -43,7 +43,8 @@ export const engineRoutes: RouteDef[] = [
     path: '/engine/estimate-shorted',
     access: everyone,
     tag: 'engine',
-    summary: 'Shorted lamps estimated from a clamp-meter reading',
+    summary:
+      'Shorted lamps from a clamp-meter reading: the range allows the meter (accuracy and one digit), the supply volts and the lamps (or a reference reading); a dead short is said plainly',
     body: estimateShortedRequestSchema,
     response: estimateShortedResponseSchema,
     handler: ({ body }) => estimateShorted(body),
@@ -53,7 +54,8 @@ export const engineRoutes: RouteDef[] = [
     path: '/engine/cold-resistance',
     access: everyone,
     tag: 'engine',
-    summary: 'Expected cold resistance and what a reading points to',
+    summary:
+      'Expected cold resistance (from a healthy reference string, or hot ÷ the bench hot/cold ratio), the open and shorted thresholds, and what a reading points to',
     body: coldResistanceRequestSchema,
     response: coldResistanceResponseSchema,
     handler: ({ body }) => coldResistance(body),

@@ -25,14 +25,7 @@ export const photoRoutes: RouteDef[] = [
     before: (deps) => [memoryUpload(deps.config)],
     handler: async ({ req, res, params, user, deps, idempotencyKey }) => {
       const files = Array.isArray(req.files) ? req.files : []
-      const { created, items } = await savePhotos(
-        deps.db,
-        deps.files,
-        params.id,
-        user,
-        files,
-        idempotencyKey,
-      )
+      const { created, items } = await savePhotos(deps.db, deps.files, params.id, user, files, idempotencyKey)
       if (!created) res.status(200)
       return { items }
     },

@@ -1,6 +1,6 @@
 import type { Db } from '../db'
 import { badRequest } from '../errors'
-import { judgeReadings } from '../../shared/test-limits'
+import { judgeReadings, type RcdType } from '../../shared/test-limits'
 import type { z } from 'zod'
 import type { certificateBody } from '../../shared/schemas/certificates'
 import { syncCertificateItems } from './queue/certificates'
@@ -20,6 +20,32 @@ async function subjectLabels(db: Db) {
   return map
 }
 
+/** A circuit's facts that a test is judged by: nominal volts, RCD rating and type (null = general). */
+async function circuitFacts(db: Db, ids?: number[]) {
+  const q = db('circuits').select('id', 'supplyVolts', 'rcdMa', 'rcdType')
+  if (ids) q.whereIn('id', ids)
+  const map = new Map<number, { supplyVolts: number; rcdMa: number | null; rcdType: RcdType }>()
+  for (const c of await q)
+    map.set(c.id, {
+      supplyVolts: Number(c.supplyVolts),
+      rcdMa: c.rcdMa === null ? null : Number(c.rcdMa),
+      rcdType: c.rcdType === 'S' ? 'S' : 'general',
+    })
+  return map
+}
+
+/** Stored readings as an object; a row written before a field existed simply lacks it. */
+function storedReadings(raw: unknown): Record<string, unknown> | null {
+  if (raw === null || raw === undefined) return null
+  if (typeof raw !== 'string') return typeof raw === 'object' ? (raw as Record<string, unknown>) : null
+  try {
+    const parsed: unknown = JSON.parse(raw)
+    return parsed && typeof parsed === 'object' ? (parsed as Record<string, unknown>) : null
+  } catch {
+    return null
+  }
+}
+
 export async function listCertificates(
   db: Db,
   q: { kind?: string; due: string; limit: number },
@@ -37,6 +63,7 @@ export async function listCertificates(
   if (q.due === 'failed') b.where('c.result', 'fail')
   const rows = await b.orderBy('c.nextDue').limit(q.limit).select('c.*')
   const labels = await subjectLabels(db)
+  const circuits = await circuitFacts(db)
   return rows.map((r) => ({
     id: r.id,
     kind: r.kind,
@@ -48,11 +75,12 @@ export async function listCertificates(
     nextDue: r.nextDue ?? null,
     result: r.result,
     inspector: r.inspector ?? null,
-    readings: typeof r.readings === 'string' ? JSON.parse(r.readings) : (r.readings ?? null),
+    readings: storedReadings(r.readings),
     notes: r.notes ?? null,
     daysToDue: r.nextDue
       ? Math.round((Date.parse(`${r.nextDue}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / DAY)
       : null,
+    circuit: r.subjectType === 'circuit' ? (circuits.get(r.subjectId) ?? null) : null,
   }))
 }
 
@@ -63,7 +91,8 @@ export async function recordCertificate(db: Db, userId: number, body: z.infer<ty
   ]
   if (!(await db(table).where({ id: body.subjectId }).first('id')))
     throw badRequest('unknown_subject', `No ${body.subjectType} with id ${body.subjectId}.`)
-  const judged = judgeReadings(body.kind, body.readings ?? {})
+  const readings = await withCircuitDefaults(db, body)
+  const judged = judgeReadings(body.kind, readings ?? {})
   const result = judged?.result ?? body.result
   if (!result)
     throw badRequest('validation_failed', 'Give a result or readings that decide it.', {
@@ -78,10 +107,26 @@ export async function recordCertificate(db: Db, userId: number, body: z.infer<ty
     nextDue: body.nextDue ?? null,
     result,
     inspector: body.inspector ?? null,
-    readings: body.readings ? JSON.stringify(body.readings) : null,
+    readings: readings ? JSON.stringify(readings) : null,
     notes: [body.notes, ...(judged?.reasons ?? [])].filter(Boolean).join(' ') || null,
     createdBy: userId,
   })
   await syncCertificateItems(db, new Date())
-  return { id, result, reasons: judged?.reasons ?? [] }
+  return { id, result, reasons: judged?.reasons ?? [], findings: judged?.findings ?? [] }
+}
+
+/**
+ * A test on a circuit is judged by the circuit's own facts unless the readings say otherwise: the
+ * RCD's type and rating for an RCD test, the nominal voltage for an insulation test. The filled-in
+ * values are stored with the readings, so the record shows what it was judged against.
+ */
+async function withCircuitDefaults(db: Db, body: z.infer<typeof certificateBody>) {
+  const r = body.readings
+  if (body.subjectType !== 'circuit' || !r) return r
+  const c = (await circuitFacts(db, [body.subjectId])).get(body.subjectId)
+  if (!c) return r
+  if (body.kind === 'rcd_test')
+    return { ...r, rcdType: r.rcdType ?? c.rcdType, ratedMa: r.ratedMa ?? c.rcdMa ?? undefined }
+  if (body.kind === 'insulation_test') return { ...r, circuitVolts: r.circuitVolts ?? c.supplyVolts }
+  return r
 }

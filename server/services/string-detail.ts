@@ -4,7 +4,7 @@ import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
 import { loadType } from './strings'
-import { stringAssessment, stringForecast } from './string-engine'
+import { exposureNow, stringAssessment, stringForecast } from './string-engine'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
 import { clientZone } from './zones'
@@ -67,6 +67,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'v.replaced',
       'v.fuseReplaced',
       'v.darkOnArrival',
+      'v.brightLamps',
       'v.statusAfter',
       'v.notes',
       'v.isolationId',
@@ -80,8 +81,28 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
         .select('id', 'visitId')
     : []
   const burn = burnHoursPerDay(site.switchOn, site.switchOff)
-  const assessment = stringAssessment(type, s)
-  const fc = stringForecast(type, s, burn, localDay(now, await clientZone(db, site.clientId)))
+  const assessed = stringAssessment(type, s)
+  // The risk rule is judged by the forecast job, not by assess: its reason says which rule fired.
+  const assessment =
+    s.replaceRule === 'risk' && s.riskNote
+      ? {
+          ...assessed,
+          reasons: [
+            ...assessed.reasons,
+            {
+              code: 'replace_risk' as const,
+              text: `Replace now: ${String(s.riskNote).replace(/^forecast: /, 'the forecast gives a ')}.`,
+            },
+          ],
+        }
+      : assessed
+  const fc = stringForecast(type, s, {
+    burnHoursPerDay: burn,
+    startDate: localDay(now, await clientZone(db, site.clientId)),
+    now,
+  })
+  // Age and exposure as stored at the last change of state, plus the hours burned since.
+  const age = exposureNow(type, s, burn, now)
   return {
     id: s.id,
     assetTag: s.assetTag,
@@ -96,7 +117,11 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     lng: s.lng,
     line: parseLine(s.line),
     installedOn: s.installedOn ?? null,
-    lampAgeHours: s.lampAgeHours,
+    lampAgeHours: Math.round(age.lampAgeHours),
+    lampExposure: age.lampExposure.map((x) => Math.round(x)),
+    exposureAt: isoOrNull(s.exposureAt),
+    replaceRule: s.replaceRule ?? null,
+    riskNote: s.riskNote ?? null,
     lastVisitAt: isoOrNull(s.lastVisitAt),
     type,
     site: {

@@ -1,8 +1,7 @@
 import type { Db } from '../db'
 import { notFound } from '../errors'
-import { conditionOf, stringStatus } from '../../shared/string-status'
 import { loadType } from './strings'
-import { syncStringQueue } from './queue/strings'
+import { accrueExposure, restateStrings } from './estate/children'
 
 export async function listStringTypes(db: Db) {
   const rows = await db('stringTypes').whereNull('archivedAt').orderBy('code').select('id')
@@ -19,20 +18,12 @@ export async function listStringTypes(db: Db) {
 /** Changes a type's thresholds and life model, then restates every string of that type in one commit. */
 export async function updateStringType(db: Db, id: number, patch: Record<string, number | undefined>) {
   return db.transaction(async (trx) => {
-    const n = await trx('stringTypes').where({ id }).update(patch)
-    if (!n) throw notFound('String type')
+    if (!(await trx('stringTypes').where({ id }).first('id'))) throw notFound('String type')
+    // Hours burned so far count at the old life exponent: exposure is brought up to date first.
+    if (patch.lifeExponent !== undefined) await accrueExposure(trx, { typeId: id })
+    await trx('stringTypes').where({ id }).update(patch)
     const type = await loadType(trx, id)
-    let restated = 0
-    const strings = await trx('strings')
-      .where({ typeId: id })
-      .select('id', 'lampsOut', 'fuseFailed', 'dark', 'isolated', 'lampAgeHours', 'status', 'replaceNow')
-    for (const s of strings) {
-      const { status, replaceNow, result } = stringStatus(type, conditionOf(s))
-      if (status === s.status && replaceNow === !!s.replaceNow) continue
-      await trx('strings').where({ id: s.id }).update({ status, replaceNow, maxRatio: result.maxRatio })
-      await syncStringQueue(trx, s.id, null)
-      restated++
-    }
+    const restated = await restateStrings(trx, { typeId: id })
     const count = Number((await trx('strings').where({ typeId: id }).count({ n: '*' }))[0].n)
     return { type: { ...type, strings: count }, restated }
   })

@@ -2,6 +2,7 @@ import type { Db } from '../db'
 import { notFound } from '../errors'
 import type { MapItem, StringDetail } from '../../shared/schemas/strings'
 import type { StringStatus, TypeSpec } from '../../shared/string-status'
+import { burnHoursPerDay } from '../../shared/schedule'
 
 const parseLine = (v: unknown) =>
   (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
@@ -60,9 +61,19 @@ export async function loadType(db: Db, typeId: number) {
   const classes = await db('lampClasses')
     .where({ stringTypeId: typeId })
     .orderBy('position')
-    .select('label', 'count', 'ratedVolts', 'ratedAmps', 'shunted')
+    .select('label', 'count', 'ratedVolts', 'ratedAmps', 'shunted', 'ratedLifeHours', 'lifeExponent')
   return { ...t, classes: classes.map((c) => ({ ...c, shunted: Boolean(c.shunted) })) } as TypeSpec &
     StringDetail['type'] & { id: number }
 }
 
 export type StringType = Awaited<ReturnType<typeof loadType>>
+
+/** The hours a night a site's client burns its lights (switch-on to switch-off). */
+export async function siteBurnHours(db: Db, siteId: number): Promise<number> {
+  const c = await db('sites as si')
+    .join('clients as c', 'c.id', 'si.clientId')
+    .where('si.id', siteId)
+    .first('c.switchOn', 'c.switchOff')
+  if (!c) throw notFound('Site')
+  return burnHoursPerDay(c.switchOn, c.switchOff)
+}

@@ -10,6 +10,7 @@ import type { PlanInput, PlanResult } from '../../shared/routing/plan'
 import { runInPool } from './pool'
 import { takeJobSlot } from './job-slots'
 import type { TaskName } from './tasks'
+import type { PdfInput } from '../services/client-report-pdf-layout'
 
 export interface JobOwner {
   userId: number
@@ -92,9 +93,17 @@ export function readRegisterInPool<T>(input: unknown, owner: JobOwner): Promise<
   return runJob('registerRead', input, REGISTER_READ_TIMEOUT_MS, owner)
 }
 
+// A client report's PDF is drawn in about a second on a busy core.
+const PDF_TIMEOUT_MS = 30_000
+
+/** A client report's PDF drawn off the event loop (services/client-report-pdf-layout.ts). */
+export function pdfInPool(input: PdfInput, owner?: JobOwner): Promise<Uint8Array> {
+  return runJob('clientReportPdf', input, PDF_TIMEOUT_MS, owner)
+}
+
 /** A batch of forecasts for the scheduled queue job (no user waits on it, so no job slot). */
 export function forecastManyInPool(
   requests: ForecastRequest[],
-): Promise<{ pDark72: number; medianDark: string | null }[]> {
+): Promise<{ pDark72: number; medianDark: string | null; pDarkAt: { hours: number; p: number }[] }[]> {
   return runInPool('forecastMany', requests, { timeoutMs: FORECAST_BATCH_TIMEOUT_MS })
 }

@@ -11,6 +11,7 @@ import { tourRequestSchema } from '../../shared/schemas/routing'
 import { solveTour } from '../../shared/routing/solve'
 import { planRuns, type PlanInput } from '../../shared/routing/plan'
 import { readRegisterFile, type ReadInput } from '../services/register/read-task'
+import { renderClientReportPdf, type PdfInput } from '../services/client-report-pdf-layout'
 
 // Below the event loop's priority, so when the cores are busy requests are served first. On Linux a
 // thread has its own nice value (piscina's niceIncrement does the same through a native add-on).
@@ -21,7 +22,7 @@ try {
   // not Linux: the threads keep the process's priority
 }
 
-export type TaskName = 'forecast' | 'forecastMany' | 'solve' | 'plan' | 'registerRead'
+export type TaskName = 'forecast' | 'forecastMany' | 'solve' | 'plan' | 'registerRead' | 'clientReportPdf'
 
 export interface TaskError {
   status: number
@@ -35,13 +36,15 @@ export type TaskReply = { ok: unknown } | { err: TaskError }
 const tasks: Record<TaskName, (input: unknown) => TaskReply | Promise<TaskReply>> = {
   // Validated on the event loop already: a forecast request is at most 50 lamp classes.
   forecast: (input) => ({ ok: forecast(input as ForecastRequest) }),
-  // The queue job's whole-town forecasts: only what the job keeps of each (72 h risk, median date).
+  // The queue job's whole-town forecasts: only what the job keeps of each (72 h risk, median date, and
+  // the chance of going dark by the hours it asked about, for the replace-now-by-risk rule).
   forecastMany: (input) => ({
     ok: (input as ForecastRequest[]).map((req) => {
       const fc = forecast(req)
       return {
         pDark72: fc.pDark.find((p) => p.hours === 72)?.p ?? 0,
         medianDark: fc.dates?.medianDark ?? null,
+        pDarkAt: fc.pDarkAt,
       }
     }),
   }),
@@ -54,6 +57,8 @@ const tasks: Record<TaskName, (input: unknown) => TaskReply | Promise<TaskReply>
   plan: (input) => ({ ok: planRuns(input as PlanInput) }),
   // A register import's file: parsing and checking 50,000 rows is seconds of work.
   registerRead: (input) => readRegisterFile(input as ReadInput),
+  // A client report's PDF: pdfmake lays out and draws it synchronously for the best part of a second.
+  clientReportPdf: async (input) => ({ ok: await renderClientReportPdf(input as PdfInput) }),
 }
 
 /** The same answer as server/middleware/validate.ts gives for a body that fails its schema. */

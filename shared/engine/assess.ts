@@ -1,53 +1,100 @@
 import type { AssessRequest, AssessResponse } from '../schemas/engine'
 import type { EngineState } from '../schemas/string-states'
 import { DEFAULT_LIFE_EXPONENT, DEFAULT_REPLACE_AT_RATIO } from './defaults'
-import { lampFactors } from './lamp-laws'
-import { assessReasons } from './reasons'
-import { lampsFailed, stringCondition } from './string-condition'
+import { lampFactors, lawsRange } from './lamp-laws'
+import { assessLed, isLed } from './led'
+import { faultReasons } from './fault-reasons'
+import { stressReasons } from './reasons'
+import { stringCondition, type StringCondition } from './string-condition'
 
-// Assessment of one string now: voltage per lamp, stress factors, and whether to replace now.
+/** The string's range against the laws: 'high' if any lit lamp is over, else 'low' if any is under. */
+function stringRange(cond: StringCondition): 'low' | 'ok' | 'high' {
+  const lit = cond.ratios.map((_, i) => i).filter((i) => cond.lit[i] > 0)
+  if (lit.some((i) => lawsRange(cond.ratios[i]) === 'high')) return 'high'
+  if (lit.some((i) => lawsRange(cond.minRatios[i]) === 'low')) return 'low'
+  return 'ok'
+}
+
+// Assessment of one string now: the one current in each series chain solved from every class's own
+// rating (series-share.ts), volts × amps = watts, stress factors where the lamp laws hold, and whether
+// to replace now. LED strings follow the constant-current model of led.ts.
 export function assess(input: AssessRequest): AssessResponse {
+  if (isLed(input)) return assessLed(input)
   const wiring = input.wiring ?? 'series'
   const lifeExponent = input.lifeExponent ?? DEFAULT_LIFE_EXPONENT
   const replaceAtRatio = input.replaceAtRatio ?? DEFAULT_REPLACE_AT_RATIO
-  const condition = stringCondition(input.supplyVolts, input.lamps, wiring)
+  const cond = stringCondition(input.supplyVolts, input.lamps, wiring, input.branches ?? 1)
+  const range = cond.dark ? 'ok' : stringRange(cond)
+  // Vacuously true for a dark string: no lamp lit, nothing extrapolated.
+  const lawsApply = range === 'ok'
   const classes = input.lamps.map((c, i) => {
-    const ratio = condition.ratios[i]
+    const ratio = cond.ratios[i]
+    const lit = ratio > 0
+    // Series: the class's current is its chain's, I_rated · r^0.55 from the solve; parallel: its own.
+    const f = lawsApply && lit ? lampFactors(ratio, lifeExponent) : null
+    const ampsPerLamp = f ? c.ratedAmps * f.currentFactor : null
+    const voltsPerLamp = ratio * c.ratedVolts
     return {
-      lampsInCircuit: condition.inCircuit[i],
-      voltsPerLamp: ratio * c.ratedVolts,
+      lampsInCircuit: cond.inCircuit[i],
+      lampsLit: cond.lit[i],
+      voltsPerLamp,
       ratio,
-      ...lampFactors(ratio, lifeExponent),
+      ampsPerLamp,
+      wattsPerLamp: ampsPerLamp === null ? null : voltsPerLamp * ampsPerLamp,
+      currentFactor: f?.currentFactor ?? null,
+      powerFactor: f?.powerFactor ?? null,
+      lightFactor: f?.lightFactor ?? null,
+      lifeFactor: f?.lifeFactor ?? null,
     }
   })
 
-  let stringAmps = 0
-  let stringWatts = 0
   let maxAt = -1
-  input.lamps.forEach((c, i) => {
-    const n = condition.dark ? 0 : condition.inCircuit[i]
-    stringWatts += n * c.ratedVolts * c.ratedAmps * classes[i].powerFactor
-    if (wiring === 'parallel') stringAmps += n * c.ratedAmps * classes[i].currentFactor
-    if (n > 0 && (maxAt < 0 || classes[i].ratio > classes[maxAt].ratio)) maxAt = i
+  classes.forEach((c, i) => {
+    if (c.lampsLit > 0 && (maxAt < 0 || c.ratio > classes[maxAt].ratio)) maxAt = i
   })
-  if (wiring === 'series' && maxAt >= 0) {
-    // One current flows through a series string. The voltage-share rule assumes equal rated current;
-    // where ratings disagree we use their mean weighted by lamps in circuit.
-    const lit = condition.inCircuit.reduce((a, b) => a + b, 0)
-    const meanRatedAmps = input.lamps.reduce((s, c, i) => s + c.ratedAmps * condition.inCircuit[i], 0) / lit
-    stringAmps = meanRatedAmps * classes[maxAt].currentFactor
-  }
   const maxRatio = maxAt >= 0 ? classes[maxAt].ratio : 0
-  const replaceNow = condition.dark || maxRatio >= replaceAtRatio - 1e-9
-  const anyOut = input.lamps.some((c) => lampsFailed(c) > 0)
-  const state: EngineState = condition.dark ? 'dark' : replaceNow ? 'replace' : anyOut ? 'watch' : 'lit'
-  const reasons = assessReasons({
-    wiring,
-    lamps: input.lamps,
-    condition,
+  const stringAmps = lawsApply ? cond.amps : null
+  const anyOut = input.lamps.some((c) => (c.failed ?? 0) + (c.opened ?? 0) + (c.removed ?? 0) > 0)
+  // An empty socket is live (trade-reference §2a): in a parallel string too, fit a lamp now.
+  const removed = input.lamps.some((c) => (c.removed ?? 0) > 0)
+  const replaceNow =
+    cond.dark || range === 'high' || cond.branchesDark > 0 || removed || maxRatio >= replaceAtRatio - 1e-9
+  const state: EngineState = cond.dark
+    ? 'dark'
+    : replaceNow
+      ? 'replace'
+      : anyOut || range === 'low'
+        ? 'watch'
+        : 'lit'
+  const reasons = faultReasons(input.lamps, cond, wiring)
+  if (!cond.dark)
+    reasons.push(
+      ...stressReasons({
+        wiring,
+        lamps: input.lamps,
+        condition: cond,
+        maxRatio,
+        maxAt,
+        lifeFactorAtMax: maxAt >= 0 ? classes[maxAt].lifeFactor : null,
+        range,
+        replaceAtRatio,
+      }),
+    )
+  return {
+    lit: !cond.dark,
+    state,
+    technology: 'filament',
+    lawsApply,
+    stringVolts: input.supplyVolts,
+    stringAmps,
+    // Volts × amps exactly: the number an electrician gets multiplying the two on the page.
+    stringWatts: stringAmps === null ? null : input.supplyVolts * stringAmps,
+    powerFactor: 1,
+    branches: cond.branches,
+    branchesDark: cond.branchesDark,
     maxRatio,
-    lifeFactorAtMax: maxAt >= 0 ? classes[maxAt].lifeFactor : 0,
-    replaceAtRatio,
-  })
-  return { lit: !condition.dark, state, stringAmps, stringWatts, maxRatio, replaceNow, reasons, classes }
+    replaceNow,
+    reasons,
+    classes,
+  }
 }

@@ -1,5 +1,6 @@
 import type {
   BreakerCurve,
+  CircuitReason,
   CircuitRequest,
   CircuitResponse,
   CircuitString,
@@ -7,6 +8,7 @@ import type {
 } from '../schemas/engine'
 import { CONTINUOUS_LOAD_FRACTION, DEFAULT_BURN_HOURS_PER_DAY, DEFAULT_SEASON_DAYS } from './defaults'
 import { energyUse } from './energy'
+import { rcdVerdict } from './circuit-rcd'
 
 // Instantaneous (magnetic) trip bands as multiples of rated current, IEC 60898-1.
 export const INSTANTANEOUS_BANDS: Record<BreakerCurve, readonly [number, number]> = {
@@ -15,11 +17,9 @@ export const INSTANTANEOUS_BANDS: Record<BreakerCurve, readonly [number, number]
   D: [10, 20],
 }
 
-// Additional protection needs IΔn ≤ 30 mA (BS 7671 reg 415.1.1).
-const ADDITIONAL_PROTECTION_MILLIAMPS = 30
-// An RCD must not trip at 0.5 × IΔn (BS EN 61008-1 / 61009-1); standing leakage at or above that
-// may trip it.
-const RCD_NO_TRIP_FRACTION = 0.5
+// One half-cycle of a 50 Hz supply, ms. The bands are stated for currents lasting at least that long;
+// an LED driver's inrush pulse is usually far shorter (its data sheet gives the width).
+const HALF_CYCLE_MS = 10
 
 export function switchOnVerdict(peakAmps: number, breakerAmps: number, curve: BreakerCurve): SwitchOnVerdict {
   const [low, high] = INSTANTANEOUS_BANDS[curve]
@@ -53,45 +53,81 @@ export function staggerGroups(strings: CircuitString[], limitAmps: number): numb
 
 const amps = (a: number) => `${a.toFixed(1)} A`
 
+function runningReason(running: number, limit: number, breakerAmps: number): CircuitReason {
+  if (running > breakerAmps)
+    return {
+      code: 'running_over_rating',
+      text:
+        `Running load ${amps(running)} is over the ${breakerAmps} A rating of the breaker: it will trip on ` +
+        'overload once the strings are lit, however they are switched on (IEC 60898-1 thermal release). ' +
+        'Move strings to another circuit before switching on.',
+    }
+  if (running > limit)
+    return {
+      code: 'running_over_continuous',
+      text: `Running load ${amps(running)} is over ${amps(limit)}, the continuous limit (80 %) of the ${breakerAmps} A breaker: move strings to another circuit.`,
+    }
+  return {
+    code: 'running_ok',
+    text: `Running load ${amps(running)} is within ${amps(limit)}, the continuous limit of the ${breakerAmps} A breaker.`,
+  }
+}
+
 export function assessCircuit(input: CircuitRequest): CircuitResponse {
   const { breakerAmps, curve, strings } = input
   const runningAmps = strings.reduce((s, x) => s + x.runningAmps, 0)
   const peakAmps = strings.reduce((s, x) => s + x.peakAmps, 0)
   const continuousLimitAmps = breakerAmps * (input.continuousLoadFraction ?? CONTINUOUS_LOAD_FRACTION)
   const runningOk = runningAmps <= continuousLimitAmps
+  const overload = runningAmps > breakerAmps
   const [lowX, highX] = INSTANTANEOUS_BANDS[curve]
   const band = { lowAmps: lowX * breakerAmps, highAmps: highX * breakerAmps }
-  const switchOn = switchOnVerdict(peakAmps, breakerAmps, curve)
-  const stagger = switchOn === 'safe' ? 1 : staggerGroups(strings, band.lowAmps)
-  const reasons = [
-    runningOk
-      ? `Running load ${amps(runningAmps)} is within ${amps(continuousLimitAmps)}, the continuous limit of the ${breakerAmps} A breaker.`
-      : `Running load ${amps(runningAmps)} is over ${amps(continuousLimitAmps)}, the continuous limit of the ${breakerAmps} A breaker: move strings to another circuit.`,
-  ]
+  const surge = switchOnVerdict(peakAmps, breakerAmps, curve)
+  // Over the rating the breaker trips on overload whatever the surge does: staggering cannot help.
+  const switchOn: SwitchOnVerdict = overload ? 'will trip' : surge
+  const stagger = overload ? null : surge === 'safe' ? 1 : staggerGroups(strings, band.lowAmps)
+  const reasons: CircuitReason[] = [runningReason(runningAmps, continuousLimitAmps, breakerAmps)]
   const bandText = `the type ${curve} instant-trip band (${lowX}–${highX} × rated, ${amps(band.lowAmps)}–${amps(band.highAmps)})`
-  if (switchOn === 'safe') reasons.push(`Switch-on surge about ${amps(peakAmps)} stays below ${bandText}.`)
+  if (surge === 'safe')
+    reasons.push({
+      code: 'surge_safe',
+      text: `Switch-on surge about ${amps(peakAmps)} stays below ${bandText}.`,
+    })
   else {
-    const verb = switchOn === 'may trip' ? 'falls inside' : 'is above'
-    const advice =
-      stagger === null
+    const verb = surge === 'may trip' ? 'falls inside' : 'is above'
+    const advice = overload
+      ? 'and the running load is too much for the breaker in any case.'
+      : stagger === null
         ? 'one string alone reaches the band: use a breaker with a higher curve or rating, or split the string.'
         : `switch in ${stagger} staggered groups, each once the previous one is lit.`
-    reasons.push(`Switch-on surge about ${amps(peakAmps)} ${verb} ${bandText}: ${advice}`)
+    reasons.push({
+      code: surge === 'may trip' ? 'surge_in_band' : 'surge_over_band',
+      text: `Switch-on surge about ${amps(peakAmps)} ${verb} ${bandText}: ${advice}`,
+    })
+    const pulse = strings.filter((x) => x.peakMs !== undefined && x.peakMs < HALF_CYCLE_MS)
+    if (pulse.length)
+      reasons.push({
+        code: 'surge_short_pulse',
+        text:
+          `${pulse.length} LED driver${pulse.length === 1 ? '' : 's'} switch on with a pulse shorter than half a ` +
+          `cycle (${Math.max(...pulse.map((x) => x.peakMs!))} ms at most). The peak is compared with the band as ` +
+          "if it lasted longer, which errs on the safe side: the breaker maker's table of drivers per breaker decides.",
+      })
   }
 
-  let rcd: CircuitResponse['rcd'] = null
-  if (input.rcdMilliamps !== undefined) {
-    const leakageMilliamps = strings.reduce((s, x) => s + (x.leakageMilliamps ?? 0), 0)
-    const additionalProtection = input.rcdMilliamps <= ADDITIONAL_PROTECTION_MILLIAMPS
-    const risk = leakageMilliamps >= RCD_NO_TRIP_FRACTION * input.rcdMilliamps ? 'may trip' : 'ok'
-    rcd = { leakageMilliamps, additionalProtection, risk }
-    if (!additionalProtection)
-      reasons.push(
-        `A ${input.rcdMilliamps} mA RCD does not give additional protection: that needs 30 mA or less.`,
-      )
-    if (risk === 'may trip')
-      reasons.push(`Standing leakage ${leakageMilliamps} mA is half the RCD's rating or more: it may trip.`)
-  }
+  const unknown = strings.filter((x) => x.surgeKnown === false).length
+  if (unknown)
+    reasons.push({
+      code: 'surge_unknown',
+      text:
+        `${unknown} LED string${unknown === 1 ? ' has' : 's have'} no switch-on data: the surge counts only ` +
+        "running current, so the real surge is higher. Add the driver's inrush peak and duration to the string type.",
+    })
+
+  const rcd =
+    input.rcdMilliamps === undefined
+      ? null
+      : rcdVerdict(input.rcdMilliamps, input.rcdType ?? 'general', strings, input.leakageMilliamps, reasons)
 
   const watts = strings.reduce((s, x) => s + (x.watts ?? x.runningAmps * input.supplyVolts), 0)
   const energy = energyUse(
@@ -104,6 +140,7 @@ export function assessCircuit(input: CircuitRequest): CircuitResponse {
     runningAmps,
     continuousLimitAmps,
     runningOk,
+    overload,
     peakAmps,
     instantaneousBand: band,
     switchOn,

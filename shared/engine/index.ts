@@ -4,11 +4,25 @@ export * from './defaults'
 export * from './lamp-laws'
 export * from './string-condition'
 export { assess } from './assess'
-export { assessReasons, lifePhrase, percent } from './reasons'
-export { forecast } from './forecast'
+export { darkWhere, lifePhrase, percent, stressReasons } from './reasons'
+export { faultReasons } from './fault-reasons'
+export { assessLed, isLed, ledRun, type LedRun } from './led'
+export { ISOLATION_CAUTION, liveSocketCodes, reasonCodes, type Reason, type ReasonCode } from './reason-codes'
+export { addExposure, forecast } from './forecast'
 export { expectedTimeToKthFailure, varianceTimeToKthFailure } from './cascade'
 export { burningHoursToDate, burningHoursToDates } from './calendar'
-export { createRandom, maxOfUnitExponentials, unitExponential, type Random } from './random'
+export {
+  createRandom,
+  maxOfUnitExponentials,
+  next32,
+  nextExponential,
+  nextUniform,
+  randomState,
+  uniformOf,
+  unitExponential,
+  type Random,
+  type RandomState,
+} from './random'
 export { TUNGSTEN_RESISTIVITY, filamentTemperature, resistanceRatio } from './tungsten'
 export { coldResistance, estimateShorted } from './diagnostics'
 export { stringLoad, type StringLoad } from './string-load'

@@ -1,4 +1,4 @@
-import { DEFAULT_LIFE_EXPONENT } from './defaults'
+import { DEFAULT_LIFE_EXPONENT, LAWS_MAX_RATIO, LAWS_MIN_RATIO } from './defaults'
 
 // Filament lamp voltage laws, r = applied / rated voltage.
 // Exponents from Wikipedia "Lamp rerating", citing Fink & Beaty, Standard Handbook for Electrical
@@ -23,4 +23,11 @@ export function lampFactors(ratio: number, lifeExponent = DEFAULT_LIFE_EXPONENT)
     lightFactor: ratio ** LIGHT_EXPONENT,
     lifeFactor: ratio ** -lifeExponent,
   }
+}
+
+/** Where a ratio sits against the range the laws are trusted in (defaults.ts LAWS_MIN/MAX_RATIO). */
+export function lawsRange(ratio: number): 'low' | 'ok' | 'high' {
+  if (ratio > LAWS_MAX_RATIO + 1e-12) return 'high'
+  if (ratio < LAWS_MIN_RATIO - 1e-12) return 'low'
+  return 'ok'
 }

@@ -19,6 +19,8 @@ export const certificateKindLabel: Record<(typeof certificateKinds)[number], str
   insulation_test: 'Insulation resistance test',
 }
 export const subjectTypes = ['platform', 'structure', 'string', 'circuit'] as const
+/** `general`: no intentional delay; `S`: time-delayed (selective). */
+export const rcdTypes = ['general', 'S'] as const
 
 export const certificateQuery = z.object({
   kind: z.enum(certificateKinds).optional(),
@@ -40,11 +42,34 @@ export const certificateRow = z.object({
   readings: z.record(z.string(), z.unknown()).nullable(),
   notes: z.string().nullable(),
   daysToDue: z.number().nullable(),
+  /** A circuit subject's facts, so a new test starts from them; null for other subjects. */
+  circuit: z
+    .object({ supplyVolts: z.number(), rcdMa: z.number().nullable(), rcdType: z.enum(rcdTypes) })
+    .nullable(),
 })
 export const certificateList = z.object({ items: z.array(certificateRow) })
 
 // RCD readings are checked against BS EN 61008-1 / 61009-1 and BS 7671 reg 415.1.1 (trade-reference §5);
-// insulation against BS 7671 Table 64.
+// insulation against BS 7671 Table 64 by the circuit's voltage (shared/test-limits.ts).
+export const readingsSchema = z.object({
+  ratedMa: z.number().positive().max(3000).optional(),
+  /** Absent: the circuit's RCD type when the subject is a circuit, else general. */
+  rcdType: z.enum(rcdTypes).optional(),
+  /** ½ × IΔn: true = did not trip (as it must), false = tripped; absent = not tested. */
+  noTripAtHalf: z.boolean().optional(),
+  tripMsAt1x: z.number().min(0).max(5000).optional(),
+  tripMsAt2x: z.number().min(0).max(5000).optional(),
+  tripMsAt5x: z.number().min(0).max(5000).optional(),
+  /** Standing leakage on the circuit with its load on, mA (earth-leakage clamp). */
+  leakageMa: z.number().min(0).max(3000).optional(),
+  testVolts: z.number().positive().max(5000).optional(),
+  megohms: z.number().min(0).max(100000).optional(),
+  /** Nominal voltage of the circuit, V AC; absent: the circuit's supply when the subject is a circuit. */
+  circuitVolts: z.number().int().min(1).max(1000).optional(),
+  proofLoadKn: z.number().min(0).max(1000).optional(),
+  safeWorkingLoadKg: z.number().min(0).max(10000).optional(),
+})
+
 export const certificateBody = z.object({
   kind: z.enum(certificateKinds),
   subjectType: z.enum(subjectTypes),
@@ -53,22 +78,19 @@ export const certificateBody = z.object({
   doneOn: z.iso.date(),
   nextDue: z.iso.date().optional(),
   inspector: z.string().trim().max(120).optional(),
-  readings: z
-    .object({
-      ratedMa: z.number().positive().max(3000).optional(),
-      tripMsAt1x: z.number().min(0).max(5000).optional(),
-      tripMsAt5x: z.number().min(0).max(5000).optional(),
-      testVolts: z.number().positive().max(5000).optional(),
-      megohms: z.number().min(0).max(100000).optional(),
-      proofLoadKn: z.number().min(0).max(1000).optional(),
-      safeWorkingLoadKg: z.number().min(0).max(10000).optional(),
-    })
-    .optional(),
+  readings: readingsSchema.optional(),
   result: z.enum(['pass', 'fail', 'advisory']).optional(),
   notes: z.string().trim().max(1000).optional(),
+})
+export const findingSchema = z.object({
+  code: z.string(),
+  level: z.enum(['fail', 'advisory', 'note']),
+  text: z.string(),
 })
 export const certificateCreated = z.object({
   id: z.number(),
   result: z.enum(['pass', 'fail', 'advisory']),
   reasons: z.array(z.string()),
+  /** The same reasons with stable codes and how much each weighs. */
+  findings: z.array(findingSchema),
 })

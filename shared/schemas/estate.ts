@@ -70,8 +70,8 @@ export const circuitBody = z.object({
   breakerCurve: z.enum(['B', 'C', 'D']),
   /** RCD rated residual current in mA (30 for additional protection); null when none. */
   rcdMa: z.number().int().min(10).max(1000).nullable().optional(),
-  /** `S`: time-delayed (selective) RCD; `general`: no intentional delay. */
-  rcdType: z.enum(['general', 'S']).nullable().optional(),
+  /** `S`: time-delayed (selective) RCD; `general`: no intentional delay (the default). */
+  rcdType: z.enum(['general', 'S']).default('general'),
 })
 
 export const structureBody = z.object({
@@ -86,12 +86,19 @@ export const structureBody = z.object({
   approvalExpires: isoDate.nullable().optional(),
 })
 
+const lifeHours = z.number().int().min(100).max(200_000)
+const lifeExp = z.number().min(8).max(20)
+const maybe = <T extends z.ZodType>(t: T) => t.nullable().optional()
+
 export const lampClassBody = z.object({
   label: z.string().trim().min(1).max(60),
   count: z.number().int().min(1).max(10_000),
   ratedVolts: z.number().positive().max(400),
   ratedAmps: z.number().positive().max(20),
   shunted: z.boolean(),
+  /** This class's own median life and life exponent (a fuse lamp's); null: the type's. */
+  ratedLifeHours: maybe(lifeHours),
+  lifeExponent: maybe(lifeExp),
 })
 
 export const stringTypeBody = z.object({
@@ -100,13 +107,28 @@ export const stringTypeBody = z.object({
   technology: z.enum(['filament', 'led']),
   wiring: z.enum(['series', 'parallel']).default('series'),
   supplyVolts: z.number().int().min(12).max(440),
-  ratedLifeHours: z.number().int().min(100).max(200_000),
-  lifeExponent: z.number().min(8).max(20).default(13),
+  ratedLifeHours: lifeHours,
+  lifeExponent: lifeExp.default(13),
   weibullShape: z.number().min(0.5).max(8).default(2.8),
   replaceAtRatio: z.number().min(1).max(1.5).default(1.05),
+  /** Replace now when the chance of going dark before the next patrol exceeds this; null: 0.20. */
+  replaceRisk: maybe(z.number().min(0.01).max(0.99)),
   shuntFailProbability: z.number().min(0).max(0.5).default(0.02),
   lengthM: z.number().positive().max(1000).nullable().optional(),
   notes: z.string().trim().max(500).nullable().optional(),
+  /** Parallel chains, each holding every lamp class once. */
+  branches: z.number().int().min(1).max(100).default(1),
+  /** LED driver: power factor, input range, switch-on surge (from its data sheet). */
+  powerFactor: maybe(z.number().min(0.1).max(1)),
+  driverMinVolts: maybe(z.number().int().min(1).max(1000)),
+  driverMaxVolts: maybe(z.number().int().min(1).max(1000)),
+  inrushPeakAmps: maybe(z.number().positive().max(10_000)),
+  inrushMs: maybe(z.number().min(0.01).max(10_000)),
+  /** Reference measurement of a healthy string: cold ohms, and hot amps at stated volts. */
+  referenceColdOhms: maybe(z.number().positive().max(1_000_000)),
+  referenceHotAmps: maybe(z.number().positive().max(1000)),
+  referenceVolts: maybe(z.number().positive().max(1000)),
+  hotColdRatio: maybe(z.number().min(1).max(30)),
   lampClasses: z.array(lampClassBody).min(1).max(50),
 })
 

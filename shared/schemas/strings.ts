@@ -46,7 +46,19 @@ export const stringTypeSchema = z.object({
   lifeExponent: z.number(),
   weibullShape: z.number(),
   replaceAtRatio: z.number(),
+  /** null: the default chance (shared/engine/defaults.ts DEFAULT_REPLACE_RISK). */
+  replaceRisk: z.number().nullable(),
   shuntFailProbability: z.number(),
+  branches: z.number(),
+  powerFactor: z.number().nullable(),
+  driverMinVolts: z.number().nullable(),
+  driverMaxVolts: z.number().nullable(),
+  inrushPeakAmps: z.number().nullable(),
+  inrushMs: z.number().nullable(),
+  referenceColdOhms: z.number().nullable(),
+  referenceHotAmps: z.number().nullable(),
+  referenceVolts: z.number().nullable(),
+  hotColdRatio: z.number().nullable(),
   classes: z.array(
     z.object({
       label: z.string(),
@@ -54,6 +66,9 @@ export const stringTypeSchema = z.object({
       ratedVolts: z.number(),
       ratedAmps: z.number(),
       shunted: z.boolean(),
+      /** null: the type's */
+      ratedLifeHours: z.number().nullable(),
+      lifeExponent: z.number().nullable(),
     }),
   ),
 })
@@ -73,7 +88,20 @@ export const stringDetail = z.object({
   lng: z.number(),
   line: z.array(z.tuple([z.number(), z.number()])).nullable(),
   installedOn: z.string().nullable(),
+  /** Burning hours on the lamps (the older ones, after a relamp), brought up to now. */
   lampAgeHours: z.number(),
+  /**
+   * Exposure per lamp class, brought up to now: the rated-voltage hours equivalent to the lamps'
+   * burning so far (each hour at ratio r counts r^d hours; d the class's life exponent). The forecast
+   * starts from these.
+   */
+  lampExposure: z.array(z.number()),
+  /** When the stored age and exposure were last brought up to date (each change of state). */
+  exposureAt: z.string().nullable(),
+  /** Which rule set replace now: the lamps' voltage ratio, or the forecast's risk of going dark. */
+  replaceRule: z.enum(['ratio', 'risk']).nullable(),
+  /** The risk rule's words when it fired, e.g. "forecast: 27 % chance of going dark before the next patrol on 4 Dec". */
+  riskNote: z.string().nullable(),
   lastVisitAt: z.string().nullable(),
   type: stringTypeSchema,
   site: z.object({
@@ -120,6 +148,7 @@ export const stringDetail = z.object({
       replaced: z.number(),
       fuseReplaced: z.boolean(),
       darkOnArrival: z.boolean(),
+      brightLamps: z.number(),
       statusAfter: statusSchema,
       notes: z.string().nullable(),
       isolationId: z.number().nullable(),

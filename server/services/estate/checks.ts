@@ -60,3 +60,25 @@ export function checkGeometry(merged: Record<string, unknown>) {
       field('line', 'Draw the line.'),
     )
 }
+
+/**
+ * A string type's fields that go together: the driver's input range in order, hot amps with the volts
+ * they were read at, and the LED driver data only on an LED type.
+ */
+export function checkStringType(merged: Record<string, unknown>) {
+  const n = (k: string) => (typeof merged[k] === 'number' ? (merged[k] as number) : null)
+  const min = n('driverMinVolts')
+  const max = n('driverMaxVolts')
+  if (min !== null && max !== null && min > max)
+    throw badRequest(
+      'validation_failed',
+      'The driver input range runs from its lower to its upper volts.',
+      field('driverMaxVolts', `Must be at least the lower limit, ${min} V.`),
+    )
+  if (n('referenceHotAmps') !== null && n('referenceVolts') === null)
+    throw badRequest(
+      'validation_failed',
+      'A hot reading needs the volts it was taken at.',
+      field('referenceVolts', 'Give the supply volts of the hot reading.'),
+    )
+}

@@ -6,6 +6,8 @@ import { conditionOf, stringStatus } from '../../../shared/string-status'
 import type { Role } from '../../../shared/roles'
 import { loadType } from '../strings'
 import { syncStringQueue } from '../queue/strings'
+import { exposureColumns } from '../string-engine'
+import { burnHoursPerDay } from '../../../shared/schedule'
 
 /** Who may move users between crews (issue 10 item 6): admins and supervisors. */
 const membershipEditors: readonly Role[] = ['admin', 'supervisor']
@@ -16,7 +18,7 @@ export async function loadLampClasses(db: Db, typeId: number) {
   const rows = await db('lampClasses')
     .where({ stringTypeId: typeId })
     .orderBy('position')
-    .select('label', 'count', 'ratedVolts', 'ratedAmps', 'shunted')
+    .select('label', 'count', 'ratedVolts', 'ratedAmps', 'shunted', 'ratedLifeHours', 'lifeExponent')
   return rows.map((c) => ({ ...c, shunted: Boolean(c.shunted) }))
 }
 
@@ -71,6 +73,7 @@ export async function restateStrings(trx: Db, where: { typeId?: number; id?: num
       'lampAgeHours',
       'status',
       'replaceNow',
+      'replaceRule',
     )
   let restated = 0
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
@@ -78,9 +81,56 @@ export async function restateStrings(trx: Db, where: { typeId?: number; id?: num
     if (!types.has(s.typeId)) types.set(s.typeId, await loadType(trx, s.typeId))
     const { status, replaceNow, result } = stringStatus(types.get(s.typeId)!, conditionOf(s))
     if (status === s.status && replaceNow === !!s.replaceNow) continue
-    await trx('strings').where({ id: s.id }).update({ status, replaceNow, maxRatio: result.maxRatio })
+    // A string flagged by the forecast's risk stays flagged until the forecast job judges it again.
+    if (s.replaceRule === 'risk' && (status === 'lit' || status === 'watch')) continue
+    const replaceRule = replaceNow ? 'ratio' : null
+    await trx('strings')
+      .where({ id: s.id })
+      .update({ status, replaceNow, replaceRule, riskNote: null, maxRatio: result.maxRatio })
     await syncStringQueue(trx, s.id, null)
     restated++
   }
   return restated
+}
+
+/** Fields of a type whose change moves its lamps' ratios or life exponents. */
+export const STRESS_FIELDS = [
+  'technology',
+  'wiring',
+  'supplyVolts',
+  'lifeExponent',
+  'branches',
+  'lampClasses',
+]
+
+/**
+ * Before a change that moves the lamps' stress (a type's ratings, a string's type): the hours burned
+ * since each string's last change are added to its exposure at the ratios in force until now.
+ */
+export async function accrueExposure(trx: Db, where: { typeId?: number; id?: number }, now = new Date()) {
+  const strings = await trx('strings as s')
+    .join('sites as si', 'si.id', 's.siteId')
+    .join('clients as c', 'c.id', 'si.clientId')
+    .where(where.id ? { 's.id': where.id } : { 's.typeId': where.typeId })
+    .select(
+      's.id',
+      's.typeId',
+      's.lampsOut',
+      's.fuseFailed',
+      's.dark',
+      's.isolated',
+      's.lampAgeHours',
+      's.lampExposure',
+      's.exposureAt',
+      'c.switchOn',
+      'c.switchOff',
+    )
+  const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
+  for (const s of strings) {
+    if (!types.has(s.typeId)) types.set(s.typeId, await loadType(trx, s.typeId))
+    const burn = burnHoursPerDay(s.switchOn, s.switchOff)
+    await trx('strings')
+      .where({ id: s.id })
+      .update(exposureColumns(types.get(s.typeId)!, s, burn, now))
+  }
 }

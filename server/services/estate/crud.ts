@@ -5,7 +5,7 @@ import { conflict, notFound } from '../../errors'
 import type { Role } from '../../../shared/roles'
 import { audit } from '../audit'
 import type { KindDef } from './kinds'
-import { checkGeometry, checkRefs, checkUnique, duplicateFromDb } from './checks'
+import { checkGeometry, checkRefs, checkStringType, checkUnique, duplicateFromDb } from './checks'
 
 export interface Actor {
   userId: number
@@ -25,6 +25,7 @@ const BOOLEANS = ['active', 'fuseFailed', 'dark', 'isolated', 'replaceNow', 'shu
 function rowOut(def: KindDef, raw: Record<string, unknown>) {
   const out: Record<string, unknown> = {}
   for (const [k, v] of Object.entries(raw)) {
+    if (def.derived?.includes(k)) continue
     if (v instanceof Date) out[k] = v.toISOString()
     else if (BOOLEANS.includes(k)) out[k] = Boolean(v)
     else if (def.json?.includes(k) && typeof v === 'string') out[k] = JSON.parse(v)
@@ -90,6 +91,7 @@ export function createKind(db: Db, def: KindDef, body: Record<string, unknown>, 
     await checkRefs(trx, def, body)
     await checkUnique(trx, def, body, body)
     if (def.kind === 'strings') checkGeometry(body)
+    if (def.kind === 'string-types') checkStringType(body)
     const [id] = await trx(def.table).insert(columnsOf(def, body))
     await def.saveChildren?.(trx, id, body, by.role)
     const after = await getOne(trx, def, id)
@@ -113,6 +115,8 @@ export function updateKind(db: Db, def: KindDef, id: number, body: Record<string
     await checkRefs(trx, def, changes)
     await checkUnique(trx, def, merged, changes, id)
     if (def.kind === 'strings') checkGeometry(merged)
+    if (def.kind === 'string-types') checkStringType(merged)
+    await def.beforeUpdate?.(trx, id, body)
     const n = await trx(def.table)
       .where({ id, version: body.version })
       .update({ ...changes, version: current.version + 1, updatedAt: new Date() })

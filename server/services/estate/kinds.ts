@@ -6,7 +6,15 @@ import { estateEditors, planners } from '../../../shared/roles'
 import { estateKinds, type EstateKind } from '../../../shared/schemas/estate'
 import type { Db } from '../../db'
 import { syncStringQueue } from '../queue/strings'
-import { loadLampClasses, saveLampClasses, loadMemberIds, saveMembers, restateStrings } from './children'
+import {
+  accrueExposure,
+  loadLampClasses,
+  saveLampClasses,
+  loadMemberIds,
+  saveMembers,
+  restateStrings,
+  STRESS_FIELDS,
+} from './children'
 
 export interface KindDef {
   kind: EstateKind
@@ -26,8 +34,12 @@ export interface KindDef {
   children?: string[]
   /** JSON columns, stored as text. */
   json?: string[]
+  /** Columns the engine keeps up to date, not the editor: left out of the row (the string page has them). */
+  derived?: string[]
   loadChildren?: (db: Db, id: number) => Promise<Record<string, unknown>>
   saveChildren?: (trx: Db, id: number, body: Record<string, unknown>, role?: Role) => Promise<void>
+  /** Before an update is written (`body` as sent, children included): settle what the old row implies. */
+  beforeUpdate?: (trx: Db, id: number, body: Record<string, unknown>) => Promise<void>
   /** After an update: restate what depends on the row; answers extra fields for the response. */
   afterUpdate?: (trx: Db, id: number, changed: Record<string, unknown>) => Promise<Record<string, unknown>>
   /** After archiving: what leaves with the row (queue items, crew memberships). */
@@ -97,6 +109,10 @@ export const kindDefs: KindDef[] = [
     children: ['lampClasses'],
     loadChildren: async (db, id) => ({ lampClasses: await loadLampClasses(db, id) }),
     saveChildren: saveLampClasses,
+    // Hours burned so far count at the old ratings: exposure is brought up to date first.
+    beforeUpdate: async (trx, id, body) => {
+      if (STRESS_FIELDS.some((f) => body[f] !== undefined)) await accrueExposure(trx, { typeId: id })
+    },
     afterUpdate: async (trx, id) => ({ restated: await restateStrings(trx, { typeId: id }) }),
   }),
   def('strings', {
@@ -108,6 +124,11 @@ export const kindDefs: KindDef[] = [
     refs: { typeId: 'stringTypes', siteId: 'sites', circuitId: 'circuits', structureId: 'structures' },
     unique: [{ field: 'assetTag' }],
     json: ['line'],
+    // Stored as of the last change of state; the string page brings them up to now.
+    derived: ['lampAgeHours', 'lampExposure', 'exposureAt', 'replaceRule', 'riskNote'],
+    beforeUpdate: async (trx, id, body) => {
+      if (body.typeId !== undefined) await accrueExposure(trx, { id })
+    },
     afterUpdate: async (trx, id, changed) =>
       'typeId' in changed ? { restated: await restateStrings(trx, { id }) } : {},
     afterArchive: async (trx, id) => syncStringQueue(trx, id, null),

@@ -32,6 +32,8 @@ export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promi
       's.status as stringStatus',
       's.lampsOut',
       's.maxRatio',
+      's.replaceRule',
+      's.riskNote',
       'st.replaceAtRatio',
       's.lat as sLat',
       's.lng as sLng',

@@ -13,6 +13,10 @@ interface Row {
   maxRatio?: number | null
   /** The string type's own replace-now limit (lamp voltage over rated). */
   replaceAtRatio?: number | null
+  /** Which rule set replace now: 'ratio' (the lamps' voltage) or 'risk' (the forecast). */
+  replaceRule?: string | null
+  /** The risk rule's words, e.g. "forecast: 27 % chance of going dark before the next patrol on 4 Dec". */
+  riskNote?: string | null
   hazard?: number | boolean | null
   importance?: number | null
   summary: string
@@ -32,6 +36,14 @@ export function scoreItem(r: Row, now: Date) {
       why.push('String is dark')
       break
     case 'replace_now': {
+      if (r.replaceRule === 'risk') {
+        // Likely dark before anyone is due to pass: between a string over its limit and a dark one.
+        risk = 35
+        why.push(
+          r.riskNote ? r.riskNote.replace(/^forecast:/, 'Forecast:') : 'Forecast: likely to go dark soon',
+        )
+        break
+      }
       // Past the type's own limit, risk grows until the lamps run 10 points of rating over it.
       const limit = r.replaceAtRatio ?? DEFAULT_REPLACE_AT_RATIO
       const ratio = r.maxRatio ?? limit

@@ -35,6 +35,8 @@ export async function syncStringQueue(db: Db, stringId: number, visitId: number 
       's.name',
       's.status',
       's.lampsOut',
+      's.replaceRule',
+      's.riskNote',
       's.siteId',
       's.archivedAt',
       'si.clientId',
@@ -49,15 +51,19 @@ export async function syncStringQueue(db: Db, stringId: number, visitId: number 
     }))
   }
   const kind: QueueKind | undefined = stringStatusKind[s.status as keyof typeof stringStatusKind]
+  // A string dark or to be replaced now has that item; its "may go dark" forecast item gives way to it.
   const settled = kind
-    ? STATE_KINDS.filter((k) => k !== kind)
+    ? [...STATE_KINDS.filter((k) => k !== kind), 'forecast_dark' as const]
     : [...STATE_KINDS, 'forecast_dark' as const, ...(visitId ? ['public_report' as const] : [])]
   await closeItems(db, await activeItems(db, stringId, settled), { now, visitId })
   if (!kind) return
+  // The summary says which rule fired: the lamps' voltage ratio, or the forecast's risk.
   const summary =
     kind === 'dark'
       ? `${s.assetTag} ${s.name} is dark`
-      : `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now`
+      : s.replaceRule === 'risk' && s.riskNote
+        ? `${s.assetTag} ${s.name}: replace now, ${s.riskNote}`
+        : `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now`
   await openItem(
     db,
     {

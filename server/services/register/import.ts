@@ -8,6 +8,7 @@ import { checkRows, type Checked, type Lookups, type StringFields } from './chec
 import { FileProblem, parseFile, type FileFormat } from './parse-file'
 import { loadLookups } from './lookups'
 import { badRequest, HttpError } from '../../errors'
+import { accrueExposure, restateStrings } from '../estate/children'
 
 export interface ImportOptions {
   bytes: Uint8Array
@@ -131,10 +132,22 @@ async function save(
 ): Promise<void> {
   const writeBatch = async (trx: Db, c: typeof creates, u: typeof updates) => {
     for (let i = 0; i < c.length; i += 500) await trx('strings').insert(c.slice(i, i + 500))
-    for (const { id, row } of u)
+    // A string moved to another type: its exposure is brought up to now at the old type's ratios
+    // first, and its state restated against the new type after (as an estate edit does).
+    const before = new Map<number, number>()
+    for (let i = 0; i < u.length; i += 500) {
+      const ids = u.slice(i, i + 500).map((x) => x.id)
+      for (const r of await trx('strings').whereIn('id', ids).select('id', 'typeId'))
+        before.set(r.id, r.typeId)
+    }
+    for (const { id, row } of u) {
+      const retyped = row.typeId !== before.get(id)
+      if (retyped) await accrueExposure(trx, { id })
       await trx('strings')
         .where({ id })
         .update({ ...row, version: trx.raw('version + 1'), updatedAt: new Date() })
+      if (retyped) await restateStrings(trx, { id })
+    }
     await audit(trx, {
       userId: o.userId,
       action: 'register.import',

@@ -20,6 +20,9 @@ export interface CustomSpec {
   ratedAmps: number
   fuseLamp: boolean
   wiring: 'series' | 'parallel'
+  technology: 'filament' | 'led'
+  /** chains of `count` lamps side by side */
+  branches: number
   ratedLifeHours: number
 }
 
@@ -29,30 +32,38 @@ export const CUSTOM_DEFAULT: CustomSpec = {
   ratedAmps: 0.5,
   fuseLamp: true,
   wiring: 'series',
+  technology: 'filament',
+  branches: 1,
   ratedLifeHours: 1000,
 }
 
-/** A custom string as a preset: `count` lamps in all, one of them the fuse lamp when asked for. */
+/**
+ * A custom string as a preset: `count` lamps per chain, `branches` chains side by side, one lamp of
+ * each chain the fuse lamp when asked for (filament series only: an LED section has no shunt).
+ */
 export function customPreset(c: CustomSpec): LampPreset {
   const series = c.wiring === 'series'
-  const fuse = series && c.fuseLamp && c.count > 1
+  const led = c.technology === 'led'
+  const fuse = series && !led && c.fuseLamp && c.count > 1
   const lamp = { ratedVolts: c.ratedVolts, ratedAmps: c.ratedAmps }
+  const label = led ? 'LED section' : 'Lamps'
   return {
     id: 'custom',
     label: 'Custom',
-    technology: 'filament',
+    technology: c.technology,
     wiring: c.wiring,
+    branches: c.branches,
     supplyVolts: 230,
     lifeExponent: 13,
     replaceAtRatio: 1.05,
     ratedLifeHours: c.ratedLifeHours,
     weibullShape: 2.8,
-    shuntFailProbability: series ? 0.02 : 0,
+    shuntFailProbability: series && !led ? 0.02 : 0,
     classes: fuse
       ? [
-          { label: 'Lamps', count: c.count - 1, ...lamp, shunted: true },
+          { label, count: c.count - 1, ...lamp, shunted: true },
           { label: 'Fuse lamp', count: 1, ...lamp, shunted: false },
         ]
-      : [{ label: 'Lamps', count: c.count, ...lamp, shunted: series }],
+      : [{ label, count: c.count, ...lamp, shunted: series && !led }],
   }
 }

@@ -20,6 +20,25 @@ import {
   type Result,
 } from './certificate-format'
 import { today } from '../../dates'
+import { insulationRequirement } from '../../../shared/test-limits'
+
+/**
+ * The settings of a new test (RCD type and rating, voltages) start from the circuit as recorded, else
+ * from the last test; the measured values never carry over. Older readings without an RCD type were
+ * general type.
+ */
+function startingSettings(row: CertificateRecord): Partial<Record<ReadingKey, string>> {
+  const previous = (row.readings ?? {}) as Record<string, unknown>
+  const c = row.circuit
+  const circuitVolts = c?.supplyVolts ?? (previous.circuitVolts as number | undefined)
+  const text = (v: unknown) => (v === undefined || v === null ? '' : String(v))
+  return {
+    rcdType: c?.rcdType ?? (previous.rcdType === 'S' ? 'S' : 'general'),
+    ratedMa: text(c?.rcdMa ?? previous.ratedMa ?? 30),
+    circuitVolts: text(circuitVolts),
+    testVolts: text(previous.testVolts ?? insulationRequirement(circuitVolts).testVolts),
+  }
+}
 
 /** The "Record new test" form: starts from a certificate row and saves a new test on its subject. */
 export function useRecordTest(base: () => CertificateRecord | null) {
@@ -60,12 +79,7 @@ export function useRecordTest(base: () => CertificateRecord | null) {
     kind.value = row.kind
     doneOn.value = today()
     nextDue.value = sameIntervalDue(row, doneOn.value)
-    const previous = (row.readings ?? {}) as Record<string, unknown>
-    // The settings of the test (rating, voltage) carry over; the measured values never do.
-    typed.value = {
-      ratedMa: String(previous.ratedMa ?? '30'),
-      testVolts: String(previous.testVolts ?? '500'),
-    }
+    typed.value = startingSettings(row)
     result.value = null
     reference.value = ''
     inspector.value = row.inspector ?? ''

@@ -2,6 +2,12 @@
 import { estateEditors, planners } from '../../../shared/roles'
 import type { KindView } from './kinds'
 import { date, num, opts, pick, ref, text, time } from './field-builders'
+import type { FieldDef } from './kinds'
+
+const REFERENCE = 'Reference measurement of a healthy string'
+const LED_DRIVER = 'LED driver (from its data sheet)'
+const inGroup = (group: string, f: FieldDef, when?: FieldDef['when']): FieldDef => ({ ...f, group, when })
+const led = { key: 'technology', is: 'led' }
 
 export const assetViews: KindView[] = [
   {
@@ -28,9 +34,49 @@ export const assetViews: KindView[] = [
       num('lifeExponent', 'Life exponent', true),
       num('weibullShape', 'Weibull shape', true),
       num('replaceAtRatio', 'Replace at ratio', true, 'e.g. 1.05: replace at 5% over rated volts'),
+      num(
+        'replaceRisk',
+        'Replace-now risk',
+        false,
+        'Replace now when the chance of going dark before the next patrol is above this, e.g. 0.2 = 20 %. Blank: 20 %.',
+      ),
       num('shuntFailProbability', 'Shunt failure probability', true),
+      num(
+        'branches',
+        'Parallel chains',
+        true,
+        'Chains side by side, each holding every lamp class below once',
+      ),
       num('lengthM', 'Length (m)'),
       text('notes', 'Notes'),
+      inGroup(
+        REFERENCE,
+        num(
+          'referenceColdOhms',
+          'Cold resistance (Ω)',
+          false,
+          'Whole string, isolated, read after it has been lit once',
+        ),
+      ),
+      inGroup(REFERENCE, num('referenceHotAmps', 'Running current (A)')),
+      inGroup(
+        REFERENCE,
+        num('referenceVolts', 'at supply (V)', false, 'The volts the running current was read at'),
+      ),
+      inGroup(
+        REFERENCE,
+        num(
+          'hotColdRatio',
+          'Hot/cold resistance ratio',
+          false,
+          'Blank: 11, the bench figure for small series lamps',
+        ),
+      ),
+      inGroup(LED_DRIVER, num('powerFactor', 'Power factor', false, 'e.g. 0.9'), led),
+      inGroup(LED_DRIVER, num('driverMinVolts', 'Input from (V)'), led),
+      inGroup(LED_DRIVER, num('driverMaxVolts', 'Input to (V)'), led),
+      inGroup(LED_DRIVER, num('inrushPeakAmps', 'Switch-on peak (A)'), led),
+      inGroup(LED_DRIVER, num('inrushMs', 'Switch-on surge lasts (ms)'), led),
     ],
     lampClasses: true,
     defaults: {

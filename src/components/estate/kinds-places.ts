@@ -98,6 +98,7 @@ export const placeViews: KindView[] = [
       { key: 'breakerAmps', label: 'Breaker (A)' },
       { key: 'breakerCurve', label: 'Curve' },
       { key: 'rcdMa', label: 'RCD (mA)' },
+      { key: 'rcdType', label: 'RCD type' },
     ],
     fields: [
       ref('supplyPointId', 'Supply point', 'supply-points', 'ref'),
@@ -106,15 +107,10 @@ export const placeViews: KindView[] = [
       num('breakerAmps', 'Breaker rating (A)', true),
       pick('breakerCurve', 'Breaker curve', opts('B', 'C', 'D')),
       num('rcdMa', 'RCD rating (mA)'),
-      pick(
-        'rcdType',
-        'RCD type',
-        [
-          { value: 'general', label: 'General' },
-          { value: 'S', label: 'Time-delayed (S)' },
-        ],
-        false,
-      ),
+      pick('rcdType', 'RCD type', [
+        { value: 'general', label: 'General (no delay)' },
+        { value: 'S', label: 'Time-delayed (type S)' },
+      ]),
     ],
     defaults: { supplyVolts: 230, breakerCurve: 'C', rcdMa: 30, rcdType: 'general' },
   },

@@ -16,6 +16,10 @@ export interface FieldDef {
   ref?: { kind: EstateKind; label: string }
   required?: boolean
   hint?: string
+  /** A heading shown above the first field of a run of fields with the same group. */
+  group?: string
+  /** Shown only while another field has this value (e.g. the LED driver fields for an LED type). */
+  when?: { key: string; is: unknown }
 }
 
 export interface KindView {

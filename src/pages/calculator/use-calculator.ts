@@ -1,7 +1,7 @@
 import { computed, onBeforeUnmount, ref, shallowRef, watch } from 'vue'
-import { forecast } from '../../../shared/engine/index'
-import type { AssessResponse, ForecastResponse } from '../../../shared/schemas/engine'
-import { engineInput, shuntedLampCount, stringStatus, type StringStatus } from '../../../shared/string-status'
+import { assess, forecast } from '../../../shared/engine/index'
+import type { AssessRequest, AssessResponse, ForecastResponse } from '../../../shared/schemas/engine'
+import { shuntedLampCount, type StringStatus } from '../../../shared/string-status'
 import {
   CUSTOM_DEFAULT,
   PRESETS,
@@ -10,6 +10,7 @@ import {
   type LampPreset,
 } from '../../components/calculator/presets'
 import { today } from '../../dates'
+import { NO_FAULTS, calcRequest, mainClass, type Faults } from '../../components/calculator/calc-request'
 
 // Enough simulated runs for a stable summary that still finishes within a frame on a phone.
 const TRIALS = 1000
@@ -18,6 +19,9 @@ const DEBOUNCE_MS = 150
 
 export interface CalcResult {
   status: StringStatus
+  request: AssessRequest
+  /** one per class of the request */
+  labels: string[]
   assessment: AssessResponse
   forecast: ForecastResponse
   preset: LampPreset
@@ -29,6 +33,7 @@ export function useCalculator() {
   const supplyVolts = ref<number | null>(PRESETS[0].supplyVolts)
   const lampsOut = ref(0)
   const fuseFailed = ref(false)
+  const faults = ref<Faults>({ ...NO_FAULTS })
 
   const preset = computed<LampPreset>(() =>
     presetId.value === 'custom'
@@ -36,8 +41,16 @@ export function useCalculator() {
       : (PRESETS.find((p) => p.id === presetId.value) ?? PRESETS[0]),
   )
   const maxOut = computed(() => shuntedLampCount(preset.value))
+  /** lamps of the main class over every chain: the most that can be open or missing */
+  const maxMissing = computed(() => {
+    const p = preset.value
+    return p.classes[mainClass(p)].count * Math.max(1, p.branches ?? 1)
+  })
   const hasFuseLamp = computed(
-    () => preset.value.wiring === 'series' && preset.value.classes.some((c) => !c.shunted),
+    () =>
+      preset.value.wiring === 'series' &&
+      preset.value.technology !== 'led' &&
+      preset.value.classes.some((c) => !c.shunted),
   )
 
   // A new type brings its own supply; editing a custom type keeps the voltage the user set.
@@ -48,11 +61,20 @@ export function useCalculator() {
     lampsOut.value = Math.min(lampsOut.value, maxOut.value)
     if (!hasFuseLamp.value) fuseFailed.value = false
   })
+  watch(presetId, () => {
+    faults.value = { ...NO_FAULTS }
+  })
 
   const inputError = computed(() => {
     const v = supplyVolts.value
     if (v === null || !Number.isFinite(v) || v <= 0 || v > 1000)
       return 'Enter a supply voltage from 1 to 1000 V.'
+    const f = faults.value
+    if (
+      f.wrongCount > 0 &&
+      !(f.wrongVolts > 0 && f.wrongVolts <= 1000 && f.wrongAmps > 0 && f.wrongAmps <= 100)
+    )
+      return "Enter the other lamp's rating: up to 1000 V and 100 A."
     if (presetId.value !== 'custom') return null
     if (!Number.isInteger(custom.value.count) || custom.value.count < 1 || custom.value.count > 10000)
       return 'Enter a lamp count from 1 to 10,000.'
@@ -61,6 +83,8 @@ export function useCalculator() {
     if (!(custom.value.ratedAmps > 0 && custom.value.ratedAmps <= 100))
       return 'Enter the lamp rating in amps, up to 100 A.'
     if (!(custom.value.ratedLifeHours > 0)) return 'Enter the rated life in hours.'
+    if (!Number.isInteger(custom.value.branches) || custom.value.branches < 1 || custom.value.branches > 100)
+      return 'Enter the chains side by side, from 1 to 100.'
     return null
   })
 
@@ -74,15 +98,17 @@ export function useCalculator() {
     const p = preset.value
     const supply = supplyVolts.value as number
     const condition = { lampsOut: lampsOut.value, fuseFailed: fuseFailed.value, dark: false, isolated: false }
-    // The same rules the server uses for the state marks on the map and string pages.
-    const { status, result: assessment } = stringStatus({ ...p, supplyVolts: supply }, condition)
-    const req = engineInput(p, condition, supply)
+    // The same engine the server uses for the state marks on the map and string pages.
+    const { request, labels } = calcRequest(p, supply, condition, faults.value)
+    const assessment = assess(request)
     result.value = {
-      status,
+      status: assessment.state,
       preset: p,
+      request,
+      labels,
       assessment,
       forecast: forecast({
-        ...req,
+        ...request,
         ratedLifeHours: p.ratedLifeHours,
         weibullShape: p.weibullShape,
         shuntFailProbability: p.shuntFailProbability,
@@ -93,7 +119,7 @@ export function useCalculator() {
   }
 
   watch(
-    [preset, supplyVolts, lampsOut, fuseFailed],
+    [preset, supplyVolts, lampsOut, fuseFailed, faults],
     () => {
       computing.value = true
       clearTimeout(timer)
@@ -110,8 +136,10 @@ export function useCalculator() {
     supplyVolts,
     lampsOut,
     fuseFailed,
+    faults,
     preset,
     maxOut,
+    maxMissing,
     hasFuseLamp,
     inputError,
     result,

@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest'
-import { coldResistance, estimateShorted, filamentTemperature, resistanceRatio } from '../../../shared/engine'
+import {
+  ISOLATION_CAUTION,
+  coldResistance,
+  filamentTemperature,
+  resistanceRatio,
+} from '../../../shared/engine'
 
 describe('tungsten table (Forsythe & Worthing 1925 via CRC Handbook; trade-reference §4)', () => {
   it('maps hot/cold ratios to filament temperature', () => {
@@ -16,70 +21,165 @@ describe('tungsten table (Forsythe & Worthing 1925 via CRC Handbook; trade-refer
   })
 })
 
-describe('cold resistance', () => {
-  // 20 × 12 V, 0.25 A lamps: hot resistance 48 Ω each, 960 Ω for the string (Ohm's law).
-  const string = { lamps: [{ count: 20, ratedVolts: 12, ratedAmps: 0.25 }] }
+// trade-reference §2a (bench measurement, common practice): a 20-lamp mains series string (19 shunted
+// + 1 fuse lamp) draws about 73 mA on 247 V and measures about 310 Ω cold.
+const bench = {
+  lamps: [
+    { count: 19, ratedVolts: 12, ratedAmps: 0.07 },
+    { count: 1, ratedVolts: 12, ratedAmps: 0.07, shunted: false },
+  ],
+}
+const hotReading = { volts: 247, amps: 0.073 }
 
-  it('is about 1/15 of the hot resistance at rated operating temperature', () => {
-    // Wikipedia "Incandescent light bulb": cold ≈ 1/15 of hot resistance.
-    const r = coldResistance(string)
-    expect(r.hotOhms).toBeCloseTo(960, 9)
-    expect(r.expectedOhms / 64).toBeCloseTo(1, 2)
+describe('cold resistance without a reference: the bench hot/cold ratio', () => {
+  it('expects about 307 Ω for the bench string and calls its measured 310 Ω healthy', () => {
+    // Hot: 247 / 0.073 = 3383.56 Ω (bench, §2a). Default ratio 11 (bench, §2a): 3383.56 / 11 = 307.60 Ω.
+    // Tolerance on expected: ratio ±10 % + clamp 2 % + volts 1 % + string spread 3 % = ±16 %; ohmmeter ±1 %.
+    // Open above 307.60 × 1.16 / 0.99 = 360.42 Ω; shorted below 307.60 × 0.84 / 1.01 = 255.82 Ω.
+    const r = coldResistance({ ...bench, hotReading, measuredOhms: 310 })
+    expect(r.basis).toBe('hot-reading')
+    expect(r.hotOhms).toBeCloseTo(3383.56, 1)
+    expect(r.hotColdRatio).toBe(11)
+    expect(r.expectedOhms).toBeCloseTo(307.6, 1)
+    expect(r.expectedTolerance).toBeCloseTo(0.16, 9)
+    expect(r.thresholds.openAboveOhms).toBeCloseTo(360.42, 1)
+    expect(r.thresholds.shortedBelowOhms).toBeCloseTo(255.82, 1)
+    expect(r.finding).toBe('ok')
+    expect(r.shortedEstimate).toBeNull()
+  })
+
+  it('still accepts an operating temperature: 2800 K gives the old ratio of about 15', () => {
+    // Forsythe & Worthing (trade-reference §4): 84.70 / 5.65 = 14.991; 3383.56 / 14.991 = 225.70 Ω.
+    const r = coldResistance({ ...bench, hotReading, operatingKelvin: 2800 })
+    expect(r.hotColdRatio).toBeCloseTo(14.991, 3)
+    expect(r.expectedOhms).toBeCloseTo(225.7, 1)
     expect(r.finding).toBe('not-measured')
   })
 
-  it('calls a reading far above expected, or open, an open joint or lamp', () => {
-    expect(coldResistance({ ...string, measuredOhms: null }).finding).toBe('open')
-    expect(coldResistance({ ...string, measuredOhms: 200 }).finding).toBe('open')
-    expect(coldResistance({ ...string, measuredOhms: 200 }).message).toMatch(/isolate/)
+  it('takes a stated ratio: the bench fuse lamp, 106 Ω hot at 12 V and about 7 Ω cold', () => {
+    // trade-reference §2a (bench measurement): one fuse lamp ≈ 7 Ω cold, ≈ 106 Ω at 12 V, ratio ≈ 15.
+    // Hot reading 12 V / (12 / 106) A = 106 Ω; 106 / 15 = 7.067 Ω expected; 7 Ω is within the band.
+    const lamp = { lamps: [{ count: 1, ratedVolts: 12, ratedAmps: 0.11, shunted: false }] }
+    const r = coldResistance({
+      ...lamp,
+      hotReading: { volts: 12, amps: 12 / 106 },
+      hotColdRatio: 15,
+      measuredOhms: 7,
+    })
+    expect(r.expectedOhms).toBeCloseTo(7.067, 3)
+    expect(r.finding).toBe('ok')
   })
 
-  it('counts shorted lamps from a reading below expected', () => {
-    // Each shorted lamp takes one lamp's cold resistance (64/20 Ω) out of the series string.
-    const r = coldResistance({ ...string, measuredOhms: (64 * 17) / 20 })
-    expect(r).toMatchObject({ finding: 'shorted', shortedEstimate: 3 })
-    expect(coldResistance({ ...string, measuredOhms: 64 }).finding).toBe('ok')
+  it('works from the lamp ratings with their ±10 % current tolerance', () => {
+    // 20 × 12 V 0.25 A: hot 48 Ω each, 960 Ω (Ohm's law); 960 / 11 = 87.27 Ω.
+    // Tolerance: ratio ±10 % + lamp current ±10 % (Lumitron "Lamp terminology") = ±20 %.
+    const r = coldResistance({ lamps: [{ count: 20, ratedVolts: 12, ratedAmps: 0.25 }] })
+    expect(r.basis).toBe('ratings')
+    expect(r.hotOhms).toBeCloseTo(960, 9)
+    expect(r.expectedOhms).toBeCloseTo(87.27, 2)
+    expect(r.expectedTolerance).toBeCloseTo(0.2, 9)
+    expect(r.message).toMatch(/87\.3 Ω expected/)
   })
 })
 
-describe('estimate shorted lamps from a clamp-meter reading', () => {
-  // Current law I = I_rated · r^0.55 (Fink & Beaty via Wikipedia "Lamp rerating"); voltage share
-  // V_supply / (N − k) (trade-reference §2, common practice).
-  const reading = (n: number, k: number, supply: number, ratedV: number, ratedA: number) =>
-    ratedA * (supply / (ratedV * (n - k))) ** 0.55
+describe('cold resistance against a reference of a healthy string', () => {
+  const reference = { coldOhms: 310, lampsInCircuit: 20 } // bench, §2a
 
-  it('finds 3 shorted in 20 × 12 V on 240 V', () => {
-    const r = estimateShorted({
-      supplyVolts: 240,
-      measuredAmps: reading(20, 3, 240, 12, 0.25),
-      lampCount: 20,
-      ratedVolts: 12,
-      ratedAmps: 0.25,
+  it('derives the thresholds from the reference and the meter accuracy', () => {
+    // E = 310 Ω; tolerance = meter 1 % + string spread 3 % = 4 %; meter 1 %.
+    // Open above 310 × 1.04 / 0.99 = 325.66 Ω; shorted below 310 × 0.96 / 1.01 = 294.65 Ω;
+    // dead short below half a lamp: 310 / 20 / 2 = 7.75 Ω.
+    const r = coldResistance({ ...bench, reference })
+    expect(r.basis).toBe('reference')
+    expect(r.expectedOhms).toBe(310)
+    expect(r.perLampOhms).toBeCloseTo(15.5, 9)
+    expect(r.thresholds.openAboveOhms).toBeCloseTo(325.66, 2)
+    expect(r.thresholds.shortedBelowOhms).toBeCloseTo(294.65, 2)
+    expect(r.thresholds.deadShortBelowOhms).toBeCloseTo(7.75, 9)
+  })
+
+  it('counts shorted lamps with an honest range', () => {
+    // 279 Ω: k = 20 (1 − 279/310) = 2.0; low = ⌈20 (1 − 279 × 1.01 / (310 × 0.96))⌉ = ⌈1.06⌉ = 2;
+    // high = ⌊20 (1 − 279 × 0.99 / (310 × 1.04))⌋ = ⌊2.87⌋ = 2.
+    const r = coldResistance({ ...bench, reference, measuredOhms: 279 })
+    expect(r.finding).toBe('shorted')
+    expect(r.shortedEstimate).toEqual({ estimate: 2, low: 2, high: 2 })
+    // 248 Ω: k = 20 × 62/310 = 4.0; low ⌈20 (1 − 250.48/297.6)⌉ = ⌈3.17⌉ = 4; high ⌊20 (1 − 245.52/322.4)⌋ = ⌊4.77⌋ = 4.
+    expect(coldResistance({ ...bench, reference, measuredOhms: 248 }).shortedEstimate).toEqual({
+      estimate: 4,
+      low: 4,
+      high: 4,
     })
-    expect(r.estimate).toBe(3)
-    expect(r.low).toBeLessThan(3)
-    expect(r.high).toBeGreaterThan(3)
   })
 
-  it('finds 5 shorted in 50 × 2.5 V on 120 V and none in a full string', () => {
-    const base = { supplyVolts: 120, lampCount: 50, ratedVolts: 2.5, ratedAmps: 0.17 }
-    expect(estimateShorted({ ...base, measuredAmps: reading(50, 5, 120, 2.5, 0.17) }).estimate).toBe(5)
-    const none = estimateShorted({ ...base, measuredAmps: reading(50, 0, 120, 2.5, 0.17) })
-    expect(none.estimate).toBe(0)
-    expect(none.low).toBe(0)
+  it('scales the reference to the lamps as built', () => {
+    // Reference taken with 19 lamps in circuit: 310 / 19 = 16.316 Ω a lamp; 20 lamps: 326.32 Ω.
+    const r = coldResistance({
+      ...bench,
+      reference: { coldOhms: 310, lampsInCircuit: 19 },
+      measuredOhms: 326,
+    })
+    expect(r.expectedOhms).toBeCloseTo(326.32, 2)
+    expect(r.finding).toBe('ok')
   })
 
-  it('widens the range with a less accurate meter', () => {
-    const base = {
-      supplyVolts: 240,
-      measuredAmps: reading(20, 3, 240, 12, 0.25),
-      lampCount: 20,
-      ratedVolts: 12,
-      ratedAmps: 0.25,
+  it('calls an open reading open, with the live-socket caution and the powered-string advice', () => {
+    for (const measuredOhms of [null, 400]) {
+      // 400 Ω > 325.66 Ω, the most an intact string of the type can read (above).
+      const r = coldResistance({ ...bench, reference, measuredOhms })
+      expect(r.finding).toBe('open')
+      expect(r.caution).toBe(ISOLATION_CAUTION)
+      expect(r.message).toMatch(/oxide/)
+      expect(r.message).toMatch(/switch it on once, isolate it again and take the reading then/)
     }
-    const tight = estimateShorted({ ...base, currentTolerance: 0, voltsTolerance: 0 })
-    const loose = estimateShorted({ ...base, currentTolerance: 0.05, voltsTolerance: 0.02 })
-    expect([tight.low, tight.high]).toEqual([3, 3])
-    expect(loose.high - loose.low).toBeGreaterThan(2)
+  })
+
+  it('says dead short plainly for a reading near 0 Ω', () => {
+    // 2 Ω < 7.75 Ω (half a lamp's cold resistance, above).
+    const r = coldResistance({ ...bench, reference, measuredOhms: 2 })
+    expect(r).toMatchObject({ finding: 'shorted', deadShort: true, shortedEstimate: null })
+    expect(r.message).toMatch(/^Dead short/)
+  })
+})
+
+describe('cold resistance of two chains side by side', () => {
+  // Two bench chains (310 Ω each, §2a bench measurement) in parallel: 155 Ω across the supply ends.
+  // E = 155 Ω, a lamp p = 155 × 2 / 20 = 15.5 Ω; tolerance 1 % + 3 % = 4 %, meter 1 %.
+  const two = { ...bench, branches: 2, reference: { coldOhms: 155, lampsInCircuit: 20 } }
+
+  it('ranges the count between all shorts in one chain and shorts spread evenly', () => {
+    // 140 Ω (below 155 × 0.96 / 1.01 = 147.33 Ω):
+    // even: 40 × (1 − 140/155) = 3.871 → 4; high = ⌊40 × (1 − 138.6 / 161.2)⌋ = ⌊5.608⌋ = 5;
+    // one chain: low = ⌈20 − 20 / (2 × 148.8 / 141.4 − 1)⌉ = ⌈20 − 20 / 1.104668⌉ = ⌈1.895⌉ = 2.
+    const r = coldResistance({ ...two, measuredOhms: 140 })
+    expect(r.expectedOhms).toBe(155)
+    expect(r.perLampOhms).toBeCloseTo(15.5, 9)
+    expect(r.shortedEstimate).toEqual({ estimate: 4, low: 2, high: 5 })
+  })
+
+  it('calls one chain open: 310 Ω is above 155 × 1.04 / 0.99 = 162.83 Ω', () => {
+    const r = coldResistance({ ...two, measuredOhms: 310 })
+    expect(r.thresholds.openAboveOhms).toBeCloseTo(162.83, 2)
+    expect(r).toMatchObject({ finding: 'open', caution: ISOLATION_CAUTION })
+    expect(r.message).toMatch(/one of its 2 chains open/)
+  })
+})
+
+describe('cold resistance of a parallel string', () => {
+  // 10 × 230 V 0.1 A in parallel: 2300 Ω hot each, 230 Ω together; / 11 = 20.91 Ω expected.
+  // Shorted below 20.91 × 0.8 / 1.01 = 16.56 Ω; dead short below 20.91 / 2 = 10.45 Ω.
+  const string = { lamps: [{ count: 10, ratedVolts: 230, ratedAmps: 0.1 }], wiring: 'parallel' as const }
+
+  it('judges shorts between the conductors', () => {
+    expect(coldResistance(string).expectedOhms).toBeCloseTo(20.91, 2)
+    expect(coldResistance({ ...string, measuredOhms: 21 }).finding).toBe('ok')
+    expect(coldResistance({ ...string, measuredOhms: 15 })).toMatchObject({
+      finding: 'shorted',
+      deadShort: false,
+    })
+    expect(coldResistance({ ...string, measuredOhms: 5 })).toMatchObject({
+      finding: 'shorted',
+      deadShort: true,
+    })
   })
 })

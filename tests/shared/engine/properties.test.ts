@@ -13,7 +13,8 @@ const classes = fc.array(lampClass, { minLength: 1, maxLength: 4 })
 const wiring = fc.constantFrom('series' as const, 'parallel' as const)
 const lifeExponent = fc.double({ min: 12, max: 16, noNaN: true })
 
-const near = (a: number, b: number) => Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b))
+const near = (a: number | null, b: number | null) =>
+  a === null || b === null ? a === b : Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b))
 
 describe('assess properties', () => {
   it('never lowers any ratio when one more lamp shorts', () => {
@@ -38,14 +39,58 @@ describe('assess properties', () => {
     )
   })
 
-  it('runs every lamp at ratio 1 when the supply equals the sum of ratings and none failed', () => {
+  it('runs every lamp at ratio 1 when one rated current runs through and the supply equals the sum of ratings', () => {
+    // trade-reference §2: equal rated currents share the supply in proportion to rated voltage.
+    const oneCurrent = fc
+      .tuple(classes, fc.double({ min: 0.01, max: 2, noNaN: true }))
+      .map(([ls, a]) => ls.map((c) => ({ ...c, ratedAmps: a })))
     fc.assert(
-      fc.property(classes, (lamps) => {
+      fc.property(oneCurrent, (lamps) => {
         const supply = lamps.reduce((s, c) => s + c.count * c.ratedVolts, 0)
         const r = assess({ supplyVolts: supply, lamps })
         r.classes.forEach((c) => expect(near(c.ratio, 1)).toBe(true))
         expect(r.state).toBe('lit')
       }),
+    )
+  })
+
+  it('makes a series chain obey Kirchhoff: the lamps’ volts add up to the supply, one current flows', () => {
+    // Series circuit laws; each class's current from its own law I = I_rated · r^0.55 (Fink & Beaty).
+    fc.assert(
+      fc.property(classes, fc.double({ min: 10, max: 400, noNaN: true }), (lamps, supply) => {
+        const r = assess({ supplyVolts: supply, lamps })
+        const volts = r.classes.reduce((s, c, i) => s + lamps[i].count * c.voltsPerLamp, 0)
+        expect(near(volts, supply)).toBe(true)
+        const currents = r.classes.map((c, i) => lamps[i].ratedAmps * c.ratio ** 0.55)
+        currents.forEach((a) => expect(near(a, currents[0])).toBe(true))
+      }),
+    )
+  })
+
+  it('gives string watts = volts × amps × power factor whenever it gives them', () => {
+    const tech = fc.constantFrom('filament' as const, 'led' as const)
+    const pf = fc.double({ min: 0.3, max: 1, noNaN: true })
+    fc.assert(
+      fc.property(
+        classes,
+        fc.double({ min: 10, max: 400, noNaN: true }),
+        wiring,
+        tech,
+        pf,
+        fc.integer({ min: 1, max: 4 }),
+        (lamps, supply, w, t, p, m) => {
+          const r = assess({
+            supplyVolts: supply,
+            lamps,
+            wiring: w,
+            technology: t,
+            powerFactor: p,
+            branches: m,
+          })
+          if (r.stringAmps === null) expect(r.stringWatts).toBeNull()
+          else expect(r.stringWatts).toBe(r.stringVolts * r.stringAmps * r.powerFactor)
+        },
+      ),
     )
   })
 

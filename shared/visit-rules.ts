@@ -1,6 +1,7 @@
 // What a crew visit may record and what it does to a string. The server enforces these rules; the
 // phone checks them first, so nothing doomed is queued, and previews the result offline.
 import type { Condition } from './string-status'
+import type { Reason } from './engine/reason-codes'
 
 /** Shortest reason accepted for relamping without a recorded isolation. */
 export const NO_ISOLATION_MIN = 10
@@ -51,5 +52,36 @@ export function applyVisit(before: Condition, v: VisitCounts): Condition {
     fuseFailed: v.fuseReplaced ? false : before.fuseFailed,
     dark: v.darkOnArrival ? !fixed : before.dark && !fixed,
     isolated: !!v.leaveMadeSafe,
+  }
+}
+
+/** Every lamp the string holds: one chain's lamps × its parallel chains (`branches`, default 1). */
+export function lampTotal(type: { classes: { count: number }[]; branches?: number | null }): number {
+  return type.classes.reduce((n, k) => n + k.count, 0) * Math.max(1, type.branches ?? 1)
+}
+
+/** Bright lamps found on a visit cannot outnumber the lamps in the string. */
+export function brightLampsError(brightLamps: number, total: number): string | undefined {
+  return brightLamps > total ? `This string has ${total} lamps; ${brightLamps} cannot be bright.` : undefined
+}
+
+/**
+ * The advice for lamps brighter than their neighbours (trade-reference §2a, common practice): their
+ * filament coils have touched after a knock while hot, so they run hotter and fail sooner. Its code
+ * is a live-socket code, so the isolation caution shows beside it.
+ */
+export function brightLampsAdvice(brightLamps: number): Reason | null {
+  if (brightLamps <= 0) return null
+  const one = brightLamps === 1
+  return {
+    code: 'bright_lamps',
+    text: one
+      ? '1 lamp is brighter than the others: its coils have stuck together after a knock, so it runs ' +
+        'hot and fails early. Isolate the string, tap the lamp gently so the coils separate (or replace ' +
+        'it), and stop the string swinging against hard surfaces: tie it back or pad it.'
+      : `${brightLamps} lamps are brighter than the others: their coils have stuck together after a ` +
+        'knock, so they run hot and fail early. Isolate the string, tap each bright lamp gently so the ' +
+        'coils separate (or replace it), and stop the string swinging against hard surfaces: tie it ' +
+        'back or pad it.',
   }
 }

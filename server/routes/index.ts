@@ -2,6 +2,7 @@
 import type { RouteDef } from '../route-table'
 import { authRoutes } from './auth'
 import { userRoutes } from './users'
+import { mailOutboxRoutes } from './mail-outbox'
 import { systemRoutes } from './system'
 import { stringRoutes } from './strings'
 import { visitRoutes } from './visits'
@@ -15,8 +16,11 @@ import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
 import { reportRoutes } from './reports'
 import { managerRoutes } from './manager'
+import { energyRoutes } from './energy'
 import { registerRoutes } from './register'
 import { settingsRoutes } from './settings'
+import { adminJobRoutes } from './admin-jobs'
+import { auditRoutes } from './audit'
 import { withEstate } from './estate'
 
 // The estate's routes (estate.ts) join the table; paths already here keep their answers.
@@ -24,6 +28,7 @@ export const allRoutes: RouteDef[] = withEstate([
   ...systemRoutes,
   ...authRoutes,
   ...userRoutes,
+  ...mailOutboxRoutes,
   ...stringRoutes,
   ...visitRoutes,
   ...photoRoutes,
@@ -36,6 +41,9 @@ export const allRoutes: RouteDef[] = withEstate([
   ...certificateRoutes,
   ...reportRoutes,
   ...managerRoutes,
+  ...energyRoutes,
   ...registerRoutes,
   ...settingsRoutes,
+  ...adminJobRoutes,
+  ...auditRoutes,
 ])

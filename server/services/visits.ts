@@ -2,8 +2,9 @@ import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
 import { conditionOf, shuntedLampCount, stateColumns, stringStatus } from '../../shared/string-status'
-import { applyVisit, countErrors, isRelamping } from '../../shared/visit-rules'
-import { loadType } from './strings'
+import { applyVisit, brightLampsError, countErrors, isRelamping, lampTotal } from '../../shared/visit-rules'
+import { loadType, siteBurnHours } from './strings'
+import { exposureColumns } from './string-engine'
 import { requireIsolatedFor } from './isolations'
 import { syncStringQueue } from './queue/strings'
 import { writeOnce } from './keyed-write'
@@ -15,10 +16,11 @@ async function existingVisit(db: Db, key: string) {
   const v = await db('visits as v')
     .join('strings as s', 's.id', 'v.stringId')
     .where('v.idempotencyKey', key)
-    .first('v.id', 's.id as stringId', 's.lampsOut', 's.status', 's.replaceNow')
+    .first('v.id', 'v.brightLamps', 's.id as stringId', 's.lampsOut', 's.status', 's.replaceNow')
   return v
     ? {
         id: v.id as number,
+        brightLamps: v.brightLamps as number,
         string: { id: v.stringId, lampsOut: v.lampsOut, status: v.status, replaceNow: !!v.replaceNow },
       }
     : undefined
@@ -52,6 +54,8 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody) 
   const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
   if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
   if (counts.replaced) throw invalid('replaced', counts.replaced)
+  const bright = brightLampsError(body.brightLamps ?? 0, lampTotal(type))
+  if (bright) throw invalid('brightLamps', bright)
   let isolationId: number | null = body.isolationId ?? null
   if (body.isolationKey) {
     const iso = await trx('isolations').where({ idempotencyKey: body.isolationKey }).first('id')
@@ -85,6 +89,7 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody) 
     replaced: body.replaced,
     fuseReplaced: !!body.fuseReplaced,
     darkOnArrival: !!body.darkOnArrival,
+    brightLamps: body.brightLamps ?? 0,
     supplyVolts: body.readings?.supplyVolts ?? null,
     amps: body.readings?.amps ?? null,
     coldOhms: body.readings?.coldOhms ?? null,
@@ -95,13 +100,19 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody) 
     lat: body.lat ?? null,
     lng: body.lng ?? null,
   })
+  // The hours burned since the last change count at the ratios then in force, before this visit's change.
+  const burn = await siteBurnHours(trx, s.siteId)
   await trx('strings')
     .where({ id: s.id })
     .update({
+      ...exposureColumns(type, s, burn, now, { fuseReplaced: !!body.fuseReplaced }),
       ...stateColumns(cond, assessed),
       lastVisitAt: now,
-      // Relamping restarts the age clock only for the lamps replaced; we keep the string's age as the older lamps'.
     })
   await syncStringQueue(trx, s.id, id, now)
-  return { id: id as number, string: { id: s.id, lampsOut: cond.lampsOut, status, replaceNow } }
+  return {
+    id: id as number,
+    brightLamps: body.brightLamps ?? 0,
+    string: { id: s.id, lampsOut: cond.lampsOut, status, replaceNow },
+  }
 }

@@ -70,6 +70,8 @@ export const visitBody = z
     fuseReplaced: z.boolean().optional(),
     darkOnArrival: z.boolean().optional(),
     leaveMadeSafe: z.boolean().optional(),
+    /** Lamps brighter than their neighbours (coils stuck together after a knock); none when left out. */
+    brightLamps: count.optional(),
     readings: z
       .object({
         supplyVolts: z.number().positive().max(1000).optional(),
@@ -94,5 +96,6 @@ export type VisitBody = z.infer<typeof visitBody>
 
 export const visitResult = z.object({
   id: z.number(),
+  brightLamps: z.number(),
   string: z.object({ id: z.number(), lampsOut: z.number(), status: statusSchema, replaceNow: z.boolean() }),
 })

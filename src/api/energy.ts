@@ -1,7 +1,7 @@
-import type { EnergyReport } from '../../shared/schemas/energy'
+import type { EnergyReport, LedWhatIf } from '../../shared/schemas/energy'
 import { http } from './http'
 
-export type { EnergyReport }
+export type { EnergyReport, LedWhatIf }
 export type EnergyClient = EnergyReport['clients'][number]
 export type EnergySite = EnergyClient['sites'][number]
 export type EnergyType = EnergyClient['types'][number]
@@ -13,4 +13,6 @@ export type EnergyLine = Pick<
 
 export const energyApi = {
   get: () => http.get<EnergyReport>('/energy'),
+  ledWhatIf: (clientId: number, typeId?: number) =>
+    http.get<LedWhatIf>('/energy/led-what-if', typeId ? { clientId, typeId } : { clientId }),
 }

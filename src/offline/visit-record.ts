@@ -28,6 +28,8 @@ export interface VisitDraft {
   fuseReplaced: boolean
   darkOnArrival: boolean
   leaveMadeSafe: boolean
+  /** Lamps brighter than their neighbours; drafts from before this field read as 0. */
+  brightLamps?: number
   /** As typed, so "12," or an empty field survive a reload untouched. */
   readings: { supplyVolts: string; amps: string; coldOhms: string }
   notes: string

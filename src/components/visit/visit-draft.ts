@@ -5,7 +5,13 @@ import {
   type IsolationBody,
   type VisitBody,
 } from '../../../shared/schemas/visits'
-import { NO_ISOLATION_MESSAGE, NO_ISOLATION_MIN, countErrors, isRelamping } from '../../../shared/visit-rules'
+import {
+  NO_ISOLATION_MESSAGE,
+  NO_ISOLATION_MIN,
+  brightLampsError,
+  countErrors,
+  isRelamping,
+} from '../../../shared/visit-rules'
 import { localStamp } from '../../dates'
 
 // The draft's shape belongs to the phone's store (offline/), which keeps it in the outbox.
@@ -28,6 +34,7 @@ export function newDraft(stringId: number, assetTag: string): VisitDraft {
     fuseReplaced: false,
     darkOnArrival: false,
     leaveMadeSafe: false,
+    brightLamps: 0,
     readings: { supplyVolts: '', amps: '', coldOhms: '' },
     notes: '',
     isolationMode: 'steps',
@@ -87,6 +94,7 @@ export function toVisitBody(d: VisitDraft, visitedAt: string): VisitBody {
     fuseReplaced: d.fuseReplaced,
     darkOnArrival: d.darkOnArrival,
     leaveMadeSafe: d.leaveMadeSafe,
+    brightLamps: d.brightLamps ?? 0,
     visitedAt,
   }
   if (anyReading) body.readings = JSON.parse(JSON.stringify(readings))
@@ -98,12 +106,22 @@ export function toVisitBody(d: VisitDraft, visitedAt: string): VisitBody {
 }
 
 export type DraftErrors = Partial<
-  Record<'failedFound' | 'replaced' | 'isolation' | 'noIsolationReason' | 'readings', string>
+  Record<'failedFound' | 'replaced' | 'brightLamps' | 'isolation' | 'noIsolationReason' | 'readings', string>
 >
 
-/** The checks the server makes too (shared/visit-rules.ts), made here first so nothing doomed is queued. */
-export function checkDraft(d: VisitDraft, lampsOutBefore: number, capacity: number): DraftErrors {
+/**
+ * The checks the server makes too (shared/visit-rules.ts), made here first so nothing doomed is queued.
+ * `lampTotal` is every lamp in the string (visit-rules lampTotal), the most that can be bright.
+ */
+export function checkDraft(
+  d: VisitDraft,
+  lampsOutBefore: number,
+  capacity: number,
+  lampTotal = Infinity,
+): DraftErrors {
   const errors: DraftErrors = countErrors(lampsOutBefore, d, capacity)
+  const bright = brightLampsError(d.brightLamps ?? 0, lampTotal)
+  if (bright) errors.brightLamps = bright
   if (isRelamping(d)) {
     if (d.isolationMode === 'steps' && !isolatedBeforeWork(d))
       errors.isolation = 'Finish the six steps before work, or choose "No isolation needed" and say why.'

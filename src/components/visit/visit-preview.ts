@@ -1,6 +1,8 @@
 // What a visit does to a string's recorded condition, computed on the phone with the same engine the
 // server uses (shared/string-status.ts), so the preview holds offline and matches the server's answer.
 import { assess, forecast, lifePhrase, percent } from '../../../shared/engine'
+import type { Reason } from '../../../shared/engine/reason-codes'
+import { assessmentView, isLiveSocket, toReason } from '../string/assessment-view'
 import { localDay } from '../../../shared/local-time'
 import { appTimeZone } from '../../dates'
 import {
@@ -18,35 +20,49 @@ export interface StatePreview {
   lampsOut: number
   /** "120 %" of the lamps' rated voltage, or null when nothing is lit. */
   ofRating: string | null
-  /** "about 10 % of normal" */
+  /** "about 10 % of normal"; null when nothing is lit or the lamp laws do not hold there. */
   life: string | null
-  firstReason: string | null
+  firstReason: Reason | null
+  /** A socket can be live (a live-socket reason, or lamps out on a series string): show the caution. */
+  caution: boolean
   /** The same at the supply voltage measured on site, when it differs from the nominal. */
   atMeasured: { volts: number; ofRating: string; life: string } | null
 }
 
-function hottest(result: ReturnType<typeof assess>) {
-  let best: (typeof result.classes)[number] | null = null
-  for (const c of result.classes) if (c.lampsInCircuit > 0 && (!best || c.ratio > best.ratio)) best = c
+function hottest(raw: ReturnType<typeof assess>, type: TypeSpec) {
+  const view = assessmentView(raw, type.supplyVolts, type.classes)
+  let best: (typeof view.classes)[number] | null = null
+  for (const c of view.classes) if (c.lampsLit > 0 && (!best || c.ratio > best.ratio)) best = c
   return best
 }
 
+const lifeOf = (c: { lifeFactor: number | null }) => (c.lifeFactor === null ? null : lifePhrase(c.lifeFactor))
+
 export function previewState(type: TypeSpec, cond: Condition, measuredVolts?: number): StatePreview {
   const { status, result } = stringStatus(type, cond)
-  const hot = result.lit ? hottest(result) : null
+  const reasons = (result.reasons as (string | Reason)[]).map(toReason)
+  const hot = result.lit ? hottest(result, type) : null
   let atMeasured: StatePreview['atMeasured'] = null
   if (measuredVolts && result.lit && Math.abs(measuredVolts - type.supplyVolts) >= 1) {
     const m = assess(engineInput(type, cond, measuredVolts))
-    const mHot = hottest(m)
+    const mHot = hottest(m, type)
     if (mHot)
-      atMeasured = { volts: measuredVolts, ofRating: percent(mHot.ratio), life: lifePhrase(mHot.lifeFactor) }
+      atMeasured = {
+        volts: measuredVolts,
+        ofRating: percent(mHot.ratio),
+        life: lifeOf(mHot) ?? 'not given: outside the lamp laws',
+      }
   }
   return {
     status,
     lampsOut: cond.lampsOut,
     ofRating: hot ? percent(hot.ratio) : null,
-    life: hot ? lifePhrase(hot.lifeFactor) : null,
-    firstReason: result.reasons[0] ?? null,
+    // An LED driver holds its current: the supply does not shorten the LEDs' life (engine: led_in_range).
+    life: hot ? (type.technology === 'led' ? 'rated life' : lifeOf(hot)) : null,
+    firstReason: reasons[0] ?? null,
+    caution:
+      reasons.some(isLiveSocket) ||
+      (type.wiring === 'series' && (cond.lampsOut > 0 || cond.fuseFailed || cond.dark) && !cond.isolated),
     atMeasured,
   }
 }

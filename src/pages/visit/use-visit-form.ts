@@ -2,7 +2,7 @@
 // IndexedDB as it is typed, the engine preview, and saving through the outbox.
 import { computed, ref, shallowRef, watch } from 'vue'
 import { conditionOf, shuntedLampCount, type Condition } from '../../../shared/string-status'
-import { applyVisit } from '../../../shared/visit-rules'
+import { applyVisit, lampTotal } from '../../../shared/visit-rules'
 import { ApiError } from '../../api/http'
 import { formatDate } from '../../dates'
 import type { StringDetail } from '../../api/strings'
@@ -24,6 +24,7 @@ export type Phase = 'form' | 'outcome'
 const FIELD_OF: Record<string, keyof DraftErrors> = {
   'body.failedFound': 'failedFound',
   'body.replaced': 'replaced',
+  'body.brightLamps': 'brightLamps',
   'body.noIsolationReason': 'noIsolationReason',
   'body.isolationKey': 'isolation',
   'body.readings': 'readings',
@@ -82,6 +83,7 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     return pendingVisits.value.reduce((c, v) => applyVisit(c, v.body), conditionOf(d))
   })
   const capacity = computed(() => (detail.value ? shuntedLampCount(detail.value.type) : 0))
+  const lamps = computed(() => (detail.value ? lampTotal(detail.value.type) : 0))
   const hasFuseLamp = computed(() => !!detail.value?.type.classes.some((k) => !k.shunted))
   const before = computed(() =>
     detail.value && base.value ? previewState(detail.value.type, base.value) : null,
@@ -97,7 +99,9 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     return previewForecast(detail.value, applyVisit(base.value, d))
   })
   const checks = computed<DraftErrors>(() =>
-    draft.value && base.value ? checkDraft(draft.value, base.value.lampsOut, capacity.value) : {},
+    draft.value && base.value
+      ? checkDraft(draft.value, base.value.lampsOut, capacity.value, lamps.value)
+      : {},
   )
   /** Count errors show at once (they explain a disabled +); the rest after a first try to save. */
   const errors = computed<DraftErrors>(() => {
@@ -105,7 +109,11 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     for (const f of serverError.value?.fields ?? []) server[FIELD_OF[f.path] ?? 'readings'] = f.message
     if (serverError.value?.code.startsWith('isolation_')) server.isolation = serverError.value.message
     const local = checks.value
-    const shown: DraftErrors = { failedFound: local.failedFound, replaced: local.replaced }
+    const shown: DraftErrors = {
+      failedFound: local.failedFound,
+      replaced: local.replaced,
+      brightLamps: local.brightLamps,
+    }
     return tried.value ? { ...server, ...local } : { ...server, ...shown }
   })
 
@@ -178,6 +186,7 @@ export function useVisitForm(stringId: number, editGroup: string | null) {
     saving,
     pendingVisits,
     capacity,
+    lamps,
     hasFuseLamp,
     base,
     before,

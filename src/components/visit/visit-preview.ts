@@ -75,7 +75,14 @@ export interface ForecastPreview {
 
 /** The cascade forecast after the visit, on the phone: fewer trials than the server, same model and seed. */
 export function previewForecast(
-  d: { id: number; type: LifeSpec; lampAgeHours: number; schedule: { burnHoursPerDay: number } },
+  d: {
+    id: number
+    type: LifeSpec
+    lampAgeHours: number
+    /** Rated-voltage hours per lamp class, brought up to now by the server (absent on an older saved page). */
+    lampExposure?: number[]
+    schedule: { burnHoursPerDay: number }
+  },
   cond: Condition,
   today = new Date(),
 ): ForecastPreview | null {
@@ -83,6 +90,7 @@ export function previewForecast(
   const fc = forecast(
     forecastInput(d.type, cond, {
       lampAgeHours: d.lampAgeHours,
+      exposure: d.lampExposure,
       burnHoursPerDay: d.schedule.burnHoursPerDay,
       startDate: localDay(today, appTimeZone()),
       trials: 600,

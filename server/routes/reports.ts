@@ -1,7 +1,17 @@
-import { refParam, reportBody, reportStatus, streetList } from '../../shared/schemas/reports'
+import {
+  eraseEmailBody,
+  eraseEmailResult,
+  refParam,
+  reportBody,
+  reportStatus,
+  streetList,
+} from '../../shared/schemas/reports'
 import { defineRoute, type RouteDef } from '../route-table'
 import { createReport, listStreets, reportStatus as loadStatus } from '../services/reports'
+import { eraseReporterEmail } from '../services/report-guards'
 import { LIMITS, limitByAddress } from '../services/rate-limits'
+import { nowOf } from '../deps'
+import { logger } from '../logger'
 
 // The public form and the status look-up need no account, so both are limited per address.
 export const reportRoutes: RouteDef[] = [
@@ -11,7 +21,8 @@ export const reportRoutes: RouteDef[] = [
     access: 'public',
     tag: 'public',
     summary:
-      'Report a fault without an account; a repeated Idempotency-Key answers 200 with the first report',
+      'Report a fault without an account; a repeated Idempotency-Key answers 200 with the first report. ' +
+      'An address given gets an acknowledgement with a status link',
     // Optional: the public form sends one made when it opens; other senders may leave it out.
     idempotency: 'optional',
     body: reportBody,
@@ -19,7 +30,19 @@ export const reportRoutes: RouteDef[] = [
     status: 201,
     before: (deps) => [limitByAddress(deps.db, LIMITS.report)],
     handler: async ({ deps, body, req, res, idempotencyKey }) => {
-      const { created, report } = await createReport(deps.db, body, req.ip ?? '', idempotencyKey)
+      const { created, report, mailId } = await createReport(
+        deps.db,
+        deps.config,
+        body,
+        req.ip ?? '',
+        idempotencyKey,
+        nowOf(deps),
+      )
+      // The acknowledgement is in the outbox with the report; its first attempt is made after the answer.
+      if (mailId)
+        deps.mailer
+          .deliverDue?.({ ids: [mailId] })
+          .catch((err: unknown) => logger.error({ err, mailId }, 'report mail: first attempt failed'))
       if (!created) res.status(200)
       return report
     },
@@ -29,11 +52,24 @@ export const reportRoutes: RouteDef[] = [
     path: '/reports/:ref',
     access: 'public',
     tag: 'public',
-    summary: 'Status of a public report by its reference',
+    summary: 'Status of a public report by its reference, with its history; nothing personal',
     params: refParam,
     response: reportStatus,
     before: (deps) => [limitByAddress(deps.db, LIMITS.statusLookup)],
     handler: ({ deps, params }) => loadStatus(deps.db, params.ref),
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/reports/:ref/erase-email',
+    access: 'public',
+    tag: 'public',
+    summary: 'Erase the e-mail address given with a report, with the token from a link in its e-mail',
+    params: refParam,
+    body: eraseEmailBody,
+    response: eraseEmailResult,
+    before: (deps) => [limitByAddress(deps.db, LIMITS.statusLookup)],
+    handler: ({ deps, params, body }) =>
+      deps.db.transaction((trx) => eraseReporterEmail(trx, params.ref, body.token)),
   }),
   defineRoute({
     method: 'get',

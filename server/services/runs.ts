@@ -9,6 +9,7 @@ import { loadCrews, loadItems, toPlanCrew, toPlanItem, type CrewInfo, type ItemI
 import { runMail } from '../mail/run-mail'
 import { travelMatrix } from './travel-matrix'
 import { listRuns } from './run-list'
+import { markReportsScheduled } from './queue/report-states'
 
 function view(
   date: string,
@@ -138,6 +139,7 @@ export async function publishRuns(
   const now = new Date()
   const notices: { crewId: number; changed: boolean }[] = []
   await db.transaction(async (trx) => {
+    const runIds: number[] = []
     for (const run of plan.runs) {
       const prev = await trx('runs')
         .where({ crewId: run.crewId, runDate: body.date })
@@ -177,7 +179,10 @@ export async function publishRuns(
         )
       }
       notices.push({ crewId: run.crewId, changed: prev?.state === 'published' })
+      runIds.push(runId)
     }
+    // The public reports these runs will see to read "scheduled" from this commit.
+    await markReportsScheduled(trx, runIds, now)
     await audit(trx, {
       userId,
       action: 'publish',

@@ -2,7 +2,8 @@
 // run these inside audited(), so each change and its audit row commit together.
 import { badRequest, notFound } from '../../errors'
 import type { ReportClosedState } from '../../../shared/schemas/reports'
-import { ACTIVE, closeItems, settleReports } from './items'
+import { ACTIVE, closeItems } from './items'
+import { markReportsInHand, settleReportsOfItems } from './report-states'
 import type { Db } from '../../db'
 
 async function openOrSnoozed(db: Db, id: number) {
@@ -20,6 +21,8 @@ export async function snoozeItem(db: Db, id: number, until: Date, reason: string
       fields: [{ path: 'body.until', message: 'Must be in the future.' }],
     })
   await db('queueItems').where({ id }).update({ state: 'snoozed', snoozedUntil: until, snoozeReason: reason })
+  // A supervisor has looked at it: a reporter's status page says the report is in hand.
+  await markReportsInHand(db, [id], now)
 }
 
 /** Snoozed items whose time has come are open again. */
@@ -41,7 +44,7 @@ export async function mergeItems(db: Db, into: number, ids: number[], now = new 
   await db('queueItems')
     .whereIn('id', ids)
     .update({ state: 'merged', mergedIntoId: into, openKey: null, closedAt: now })
-  await settleReports(db, ids, 'duplicate', now)
+  await settleReportsOfItems(db, ids, 'duplicate', now)
 }
 
 /**

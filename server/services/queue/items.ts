@@ -2,8 +2,9 @@
 // goes through closeItems, which also moves a public report out of `received`, so no refresh reopens it.
 import type { Db } from '../../db'
 import type { QueueKind } from '../../../shared/schemas/queue'
-import { reportOpenStates, type ReportState } from '../../../shared/schemas/reports'
+import type { ReportState } from '../../../shared/schemas/reports'
 import { dueAfter } from '../../../shared/local-time'
+import { settleReportsOfItems } from './report-states'
 
 /** Work still waiting: open, or snoozed until a time. */
 export const ACTIVE = ['open', 'snoozed'] as const
@@ -70,6 +71,8 @@ export interface CloseHow {
   reason?: string | null
   /** What a public report's status page says once its item is closed. */
   reportState?: ReportState
+  /** Words for the reporter's status page (a supervisor's, for not ours / duplicate). */
+  publicNote?: string | null
 }
 
 /** Closes the open or snoozed items among `ids`; their public reports leave `received` in the same commit. */
@@ -88,23 +91,7 @@ export async function closeItems(db: Db, ids: number[], how: CloseHow = {}): Pro
       closedByVisitId: how.visitId ?? null,
       closeReason: how.reason ?? null,
     })
-  await settleReports(db, closing, how.reportState ?? 'fixed', now)
+  // Their public reports move on in this commit, with history and the reporter's "fixed" e-mail.
+  await settleReportsOfItems(db, closing, how.reportState ?? 'fixed', now, { publicNote: how.publicNote })
   return closing
-}
-
-/**
- * Moves the public reports behind these items out of `received` / `in_hand`: the queue opens items only
- * for reports in those states, so a settled report stays settled. Reports already moved keep their state.
- */
-export async function settleReports(db: Db, itemIds: number[], state: ReportState, now = new Date()) {
-  if (!itemIds.length) return
-  const reportIds = db('queueItems')
-    .whereIn('id', itemIds)
-    .where('kind', 'public_report')
-    .whereNotNull('reportId')
-    .select('reportId')
-  await db('reports')
-    .whereIn('id', reportIds)
-    .whereIn('state', reportOpenStates)
-    .update({ state, updatedAt: now })
 }

@@ -11,7 +11,19 @@ const noSeeds = {
 }
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', '.test-data*/**', 'uploads/**', 'dev-dist/**'] },
+  {
+    ignores: [
+      'dist/**',
+      'node_modules/**',
+      '.data/**',
+      '.test-data*/**',
+      '.bench-data*/**',
+      '.cluster-data/**',
+      'backups/**',
+      'uploads/**',
+      'dev-dist/**',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...pluginVue.configs['flat/recommended'],

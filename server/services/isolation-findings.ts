@@ -2,6 +2,7 @@
 // Regulations 1989 regs 12–14, HSE HSG85; testers to HSE GS38; RCD test after work — trade-reference §6).
 import type { Finding } from '../../shared/schemas/isolations'
 import { isolateSteps, restoreSteps, stepLabel, type IsolationStep } from '../../shared/schemas/visits'
+import { STEP_GAPS, TEST_SEQUENCE_MIN_SECONDS } from '../../shared/isolation-timing'
 
 interface Record {
   state: string
@@ -59,8 +60,51 @@ export function isolationFindings(r: Record): Finding[] {
       message: 'Tester re-proved more than 30 minutes after the dead test.',
     })
   }
+  out.push(...hasteFindings(r))
   const rcd = r.steps.find((s) => s.step === 'rcd_test')
   if (rcd && !rcd.value)
     out.push({ code: 'rcd_no_reading', severity: 'minor', message: 'RCD test recorded without a trip time.' })
+  return out
+}
+
+const seconds = (ms: number) => Math.round(ms / 1000)
+
+/**
+ * Steps stamped closer together than they can honestly be done (thresholds in shared/isolation-timing.ts,
+ * common practice). A whole prove–test–re-prove that short is serious: the dead test was most likely
+ * not done. Other short gaps are minor: a record ticked off in a batch, to be asked about.
+ */
+export function hasteFindings(r: Record): Finding[] {
+  const out: Finding[] = []
+  const prove = at(r, 'prove_tester')
+  const reprove = at(r, 'reprove_tester')
+  const sequence = prove !== null && reprove !== null ? reprove - prove : null
+  const rushed = sequence !== null && sequence < TEST_SEQUENCE_MIN_SECONDS * 1000
+  if (rushed) {
+    out.push({
+      code: 'hasty_test_sequence',
+      severity: 'serious',
+      message:
+        `Tester proved, circuit tested dead and tester re-proved within ${seconds(sequence)} s. ` +
+        `Done properly this takes at least ${TEST_SEQUENCE_MIN_SECONDS} s: ask whether the dead test was done.`,
+    })
+  }
+  const short = STEP_GAPS.filter((g) => {
+    // Gaps inside a rushed sequence are already said by the serious finding.
+    if (rushed && g.from !== 'lock_off' && g.to !== 'remove_lock') return false
+    const a = at(r, g.from)
+    const b = at(r, g.to)
+    return a !== null && b !== null && b - a < g.minSeconds * 1000
+  })
+  if (short.length) {
+    const parts = short.map(
+      (g) => `${g.name} ${seconds(at(r, g.to)! - at(r, g.from)!)} s (at least ${g.minSeconds} s)`,
+    )
+    out.push({
+      code: 'hasty_steps',
+      severity: 'minor',
+      message: `Steps stamped too close together to have been done one by one: ${parts.join('; ')}.`,
+    })
+  }
   return out
 }

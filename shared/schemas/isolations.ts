@@ -3,10 +3,23 @@ import { isolationSteps } from './visits'
 
 export const reviewStates = ['pending', 'approved', 'rejected'] as const
 
+export const ISOLATION_PAGE_SIZE = 20
+/** 'any': records with at least one finding; 'serious': with a serious one. */
+export const findingFilters = ['all', 'any', 'serious'] as const
+/** 'severity': worst finding first (serious, minor, none), then newest; 'newest': by start time. */
+export const isolationSorts = ['severity', 'newest'] as const
+
 export const isolationQuery = z.object({
   review: z.enum([...reviewStates, 'all']).default('pending'),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
+  findings: z.enum(findingFilters).default('all'),
+  sort: z.enum(isolationSorts).default('severity'),
+  /** Started on these calendar days in the app's zone, both included. */
+  from: z.iso.date().optional(),
+  to: z.iso.date().optional(),
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(ISOLATION_PAGE_SIZE),
 })
+export type IsolationQuery = z.infer<typeof isolationQuery>
 
 export const finding = z.object({
   code: z.string(),
@@ -38,7 +51,14 @@ export const isolationAudit = z.object({
 export type IsolationAudit = z.infer<typeof isolationAudit>
 
 export const isolationAuditList = z.object({
+  /** One page of the records matching review + findings, in the asked order. */
   items: z.array(isolationAudit),
+  /** Records matching the review and findings filters, over all pages. */
+  total: z.number(),
+  page: z.number(),
+  pageSize: z.number(),
+  /** Under the review filter alone: every record, those with any finding, those with a serious one. */
+  counts: z.object({ all: z.number(), any: z.number(), serious: z.number() }),
   withoutIsolation: z.array(
     z.object({
       visitId: z.number(),
@@ -50,12 +70,17 @@ export const isolationAuditList = z.object({
   ),
 })
 
+/** Shortest note that says why: a rejection always needs one, and so does approving a record that
+ * has a serious finding (the server checks that against the record's findings). */
+export const REVIEW_NOTE_MIN = 5
+export const REVIEW_NOTE_MAX = 500
+
 export const reviewBody = z
   .object({
     decision: z.enum(['approved', 'rejected']),
-    note: z.string().trim().max(500).optional(),
+    note: z.string().trim().max(REVIEW_NOTE_MAX).optional(),
   })
-  .refine((b) => b.decision === 'approved' || (b.note ?? '').length >= 5, {
+  .refine((b) => b.decision === 'approved' || (b.note ?? '').length >= REVIEW_NOTE_MIN, {
     message: 'Say why the record is rejected, so the crew can put it right.',
     path: ['note'],
   })

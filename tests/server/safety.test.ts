@@ -27,7 +27,7 @@ describe('isolation sign-off', () => {
       .send({ stringId: s.id, steps })
     expect(made.status).toBe(201)
     const list = await request(t.app)
-      .get('/api/v1/isolations?review=pending&limit=500')
+      .get('/api/v1/isolations?review=pending&sort=newest&pageSize=100')
       .set('Authorization', safety)
     expect(list.status).toBe(200)
     const mine = list.body.items.find((i: { id: number }) => i.id === made.body.id)

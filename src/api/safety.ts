@@ -1,3 +1,4 @@
+// Certificates on the safety officer's pages (isolations: api/isolations.ts).
 import type { z } from 'zod'
 import type {
   certificateBody,
@@ -7,17 +8,9 @@ import type {
   certificateQuery,
   certificateRow,
 } from '../../shared/schemas/certificates'
-import type { isolationAudit, isolationAuditList, isolationQuery } from '../../shared/schemas/isolations'
 import { http } from './http'
 
 export { certificateKindLabel, certificateKinds } from '../../shared/schemas/certificates'
-export { stepLabel, isolateSteps, restoreSteps, isolationSteps } from '../../shared/schemas/visits'
-
-export type IsolationRecord = z.infer<typeof isolationAudit>
-export type IsolationList = z.infer<typeof isolationAuditList>
-export type WithoutIsolation = IsolationList['withoutIsolation'][number]
-export type ReviewFilter = z.infer<typeof isolationQuery>['review']
-export type ReviewDecision = 'approved' | 'rejected'
 
 export type CertificateRecord = z.infer<typeof certificateRow>
 export type CertificateKind = (typeof certificateKinds)[number]
@@ -25,13 +18,6 @@ export type DueFilter = z.infer<typeof certificateQuery>['due']
 export type CertificateInput = z.input<typeof certificateBody>
 export type CertificateReadings = NonNullable<CertificateInput['readings']>
 export type CertificateCreated = z.infer<typeof certificateCreated>
-
-export const isolationsApi = {
-  list: (review: ReviewFilter, limit = 100) => http.get<IsolationList>('/isolations', { review, limit }),
-  /** A rejection needs a note (the page asks for one); the server stores whichever is given. */
-  review: (id: number, decision: ReviewDecision, note?: string) =>
-    http.post<void>(`/isolations/${id}/review`, { decision, note }),
-}
 
 export const certificatesApi = {
   list: (filter: { kind?: CertificateKind; due?: DueFilter } = {}) =>

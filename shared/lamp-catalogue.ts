@@ -9,16 +9,11 @@
 // LED driver figures (power factor, input range, switch-on surge) are typical data-sheet figures,
 // demo: set each from the maker's data sheet.
 import { FUSE_LAMP_LIFE_EXPONENT } from './engine/defaults'
+import type { ClassSpec } from './string-status'
 
-export interface ClassDef {
+/** A catalogue lamp class: the recorded class (string-status.ts ClassSpec) with its label. */
+export interface ClassDef extends ClassSpec {
   label: string
-  count: number
-  ratedVolts: number
-  ratedAmps: number
-  shunted: boolean
-  /** null or absent: the type's */
-  ratedLifeHours?: number | null
-  lifeExponent?: number | null
 }
 
 export interface TypeDef {

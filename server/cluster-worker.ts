@@ -1,6 +1,6 @@
 // One API worker under server/cluster.ts: starts the server and tells the primary its port.
 import { startServer } from './index'
-import { StartError } from './start-errors'
+import { startErrorLine } from './start-errors'
 import type { WorkerMessage } from './cluster'
 
 const tell = (m: WorkerMessage) => process.send?.(m)
@@ -15,6 +15,6 @@ try {
   process.once('SIGINT', () => {}) // the primary decides when to stop (Ctrl-C reaches every process)
   process.once('SIGTERM', () => void stop())
 } catch (err) {
-  tell({ type: 'failed', message: err instanceof StartError ? err.message : String((err as Error).message) })
+  tell({ type: 'failed', message: startErrorLine(err) })
   process.exit(1)
 }

@@ -4,6 +4,7 @@ import { randomBytes } from 'node:crypto'
 import { join } from 'node:path'
 import type { Server } from 'node:http'
 import { pathToFileURL } from 'node:url'
+import cluster from 'node:cluster'
 import { loadConfig, type Config } from './config'
 import { createDb } from './db'
 import { createApp } from './app'
@@ -49,9 +50,12 @@ export async function startServer(env: NodeJS.ProcessEnv = process.env) {
         })
     if (fake) undo.push(() => fake.close())
     const mailer = createMailer(db, createTransport(config.SMTP_URL, fake?.port ?? 0), config.MAIL_FROM)
-    const line = firstAdminLine(await ensureFirstAdmin(db, config, mailer))
+    const admin = await ensureFirstAdmin(db, config, mailer)
+    // Under node:cluster the first API process speaks for all; the one that created the admin says so.
+    const announce = !cluster.isWorker || cluster.worker?.id === 1
+    const line = admin.kind === 'created' || announce ? firstAdminLine(admin) : null
     if (line) console.log(line)
-    if (!config.DEMO_MODE) {
+    if (!config.DEMO_MODE && announce) {
       const demo = await activeDemoAccounts(db)
       if (demo.length)
         console.log(

@@ -1,5 +1,6 @@
 // The first admin of a real install: with DEMO_MODE=false and no active admin, ADMIN_EMAIL (and
 // optionally ADMIN_PASSWORD) creates one at start-up. Never touches an existing admin.
+import { setTimeout as sleep } from 'node:timers/promises'
 import type { Db } from '../db'
 import { SettingError, type Config } from '../config'
 import type { Mailer } from '../mail/mailer'
@@ -15,7 +16,12 @@ export type FirstAdmin =
 
 const activeAdmins = (db: Db) => db('users').where({ role: 'admin', active: true })
 
-export async function ensureFirstAdmin(db: Db, config: Config, mailer: Mailer): Promise<FirstAdmin> {
+export async function ensureFirstAdmin(
+  db: Db,
+  config: Config,
+  mailer: Mailer,
+  attempt = 0,
+): Promise<FirstAdmin> {
   if (config.DEMO_MODE) return { kind: 'demo' }
   if (await activeAdmins(db).first('id')) return { kind: 'exists' }
   const email = config.ADMIN_EMAIL
@@ -42,6 +48,13 @@ export async function ensureFirstAdmin(db: Db, config: Config, mailer: Mailer): 
       return invited
     })
   } catch (err) {
+    // Several API processes start at once: the one whose insert lost (a duplicate key, or the deadlock
+    // victim of two inserts into an empty range) finds the winner's admin once it has committed.
+    const code = (err as { code?: string }).code
+    if ((code === 'ER_DUP_ENTRY' || code === 'ER_LOCK_DEADLOCK') && attempt < 5) {
+      await sleep(200 * (attempt + 1))
+      return ensureFirstAdmin(db, config, mailer, attempt + 1)
+    }
     if (!(err instanceof HttpError && err.code === 'email_taken')) throw err
     if (await activeAdmins(db).first('id')) return { kind: 'exists' }
     throw new SettingError(

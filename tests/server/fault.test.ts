@@ -26,7 +26,7 @@ afterAll(async () => {
   await app?.stop()
   await db?.stop()
   rmSync(dir, { recursive: true, force: true })
-})
+}, 180_000)
 
 interface Tally {
   acked: Set<string>

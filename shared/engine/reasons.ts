@@ -5,6 +5,8 @@ import type { Reason } from './reason-codes'
 import type { StringCondition, Wiring } from './string-condition'
 
 export function percent(ratio: number): string {
+  // A far-off string (10,000 lamps on one supply) must not read "0 %".
+  if (ratio > 0 && ratio < 0.005) return 'under 1 %'
   return `${Math.round(ratio * 100)} %`
 }
 

@@ -15,6 +15,31 @@ const rank: Record<ReportState, number> = {
   duplicate: 3,
 }
 
+/** Queues the reporter's "fixed" e-mail for a report row (its outbox id). */
+function queueFixedMail(
+  db: Db,
+  config: Config,
+  r: {
+    id: number
+    ref: string
+    reporterEmail: string
+    streetText?: string | null
+    createdAt: Date | string
+    clientId?: number | null
+  },
+  at: Date,
+) {
+  const report = {
+    id: r.id,
+    ref: r.ref,
+    email: r.reporterEmail,
+    street: r.streetText ?? null,
+    createdAt: new Date(r.createdAt),
+    clientId: r.clientId ?? null,
+  }
+  return queueReportMail(db, config, 'fixed', report, at)
+}
+
 export interface MoveHow {
   /** Words for the public status page (a supervisor's, for not ours / duplicate). */
   publicNote?: string | null
@@ -51,22 +76,7 @@ export async function moveReports(
   const mailIds: number[] = []
   if (state === 'fixed') {
     for (const r of moving.filter((m) => m.reporterEmail)) {
-      mailIds.push(
-        await queueReportMail(
-          db,
-          how.config ?? appConfig,
-          'fixed',
-          {
-            id: r.id,
-            ref: r.ref,
-            email: r.reporterEmail,
-            street: r.streetText ?? null,
-            createdAt: new Date(r.createdAt),
-            clientId: r.clientId ?? null,
-          },
-          now,
-        ),
-      )
+      mailIds.push(await queueFixedMail(db, how.config ?? appConfig, r, now))
     }
   }
   return { moved, mailIds }
@@ -156,21 +166,6 @@ export async function catchUpReportMoves(db: Db, config: Config = appConfig) {
   )
   const mailIds: number[] = []
   for (const r of rows.filter((x) => x.state === 'fixed' && x.reporterEmail))
-    mailIds.push(
-      await queueReportMail(
-        db,
-        config,
-        'fixed',
-        {
-          id: r.id,
-          ref: r.ref,
-          email: r.reporterEmail,
-          street: r.streetText ?? null,
-          createdAt: new Date(r.createdAt),
-          clientId: r.clientId ?? null,
-        },
-        new Date(r.updatedAt),
-      ),
-    )
+    mailIds.push(await queueFixedMail(db, config, r, new Date(r.updatedAt)))
   return mailIds
 }

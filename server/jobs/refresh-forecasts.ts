@@ -3,7 +3,7 @@
 import type { Db } from '../db'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { loadType } from '../services/strings'
-import { stringForecastRequest } from '../services/string-engine'
+import { stringForecastRequest, stringRecordColumns } from '../services/string-engine'
 import { forecastManyInPool } from '../workers/heavy-jobs'
 import { forecastInstant, localDay } from '../../shared/local-time'
 import { config } from '../config'
@@ -32,18 +32,10 @@ export async function refreshForecasts(db: Db, now = new Date()) {
     .whereNotIn('s.status', ['dark', 'safe'])
     .whereNull('s.archivedAt')
     .select(
-      's.id',
+      ...stringRecordColumns('s'),
       's.assetTag',
-      's.typeId',
       's.status',
       's.replaceRule',
-      's.lampsOut',
-      's.fuseFailed',
-      's.dark',
-      's.isolated',
-      's.lampAgeHours',
-      's.lampExposure',
-      's.exposureAt',
       's.siteId',
       'si.clientId',
       'c.switchOn',

@@ -8,6 +8,7 @@ import type { CircuitString } from '../../shared/schemas/engine'
 import { conditionOf, engineInput } from '../../shared/string-status'
 import { burnHoursPerDay, seasonNights } from '../../shared/schedule'
 import { loadType, type StringType } from './strings'
+import { stringRecordColumns } from './string-engine'
 
 /** LED driver switch-on data a string type may carry (null or absent: not known). */
 type DriverData = { inrushPeakAmps?: number | null; inrushMs?: number | null }
@@ -78,7 +79,7 @@ export async function circuitLoad(db: Db, circuitId: number) {
   if (!c) throw notFound('Circuit')
   const strings = await db('strings')
     .where({ circuitId })
-    .select('id', 'typeId', 'lampsOut', 'fuseFailed', 'dark', 'isolated', 'lampAgeHours')
+    .select(...stringRecordColumns('strings'))
   const types = new Map<number, StringType>()
   const loads: CircuitString[] = []
   for (const s of strings) {

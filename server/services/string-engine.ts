@@ -17,6 +17,20 @@ export interface StringRecord {
   exposureAt?: Date | string | null
 }
 
+/** The columns of a `StringRecord` (plus its type), for a select on `strings` under `alias`. */
+export const stringRecordColumns = (alias = 's') =>
+  [
+    'id',
+    'typeId',
+    'lampsOut',
+    'fuseFailed',
+    'dark',
+    'isolated',
+    'lampAgeHours',
+    'lampExposure',
+    'exposureAt',
+  ].map((c) => `${alias}.${c}`)
+
 /** Assessed at the string's own design supply: a 24 V curtain hangs on a 230 V circuit through its driver. */
 export function stringAssessment(type: StringType, s: StringRecord) {
   return assess(engineInput(type, conditionOf(s), type.supplyVolts))

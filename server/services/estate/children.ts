@@ -6,7 +6,7 @@ import { conditionOf, stringStatus } from '../../../shared/string-status'
 import type { Role } from '../../../shared/roles'
 import { loadType } from '../strings'
 import { syncStringQueue } from '../queue/strings'
-import { exposureColumns } from '../string-engine'
+import { exposureColumns, stringRecordColumns } from '../string-engine'
 import { burnHoursPerDay } from '../../../shared/schedule'
 
 /** Who may move users between crews (issue 10 item 6): admins and supervisors. */
@@ -112,19 +112,7 @@ export async function accrueExposure(trx: Db, where: { typeId?: number; id?: num
     .join('sites as si', 'si.id', 's.siteId')
     .join('clients as c', 'c.id', 'si.clientId')
     .where(where.id ? { 's.id': where.id } : { 's.typeId': where.typeId })
-    .select(
-      's.id',
-      's.typeId',
-      's.lampsOut',
-      's.fuseFailed',
-      's.dark',
-      's.isolated',
-      's.lampAgeHours',
-      's.lampExposure',
-      's.exposureAt',
-      'c.switchOn',
-      'c.switchOff',
-    )
+    .select(...stringRecordColumns('s'), 'c.switchOn', 'c.switchOff')
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
   for (const s of strings) {
     if (!types.has(s.typeId)) types.set(s.typeId, await loadType(trx, s.typeId))

@@ -40,6 +40,13 @@ export class ArrayTour {
     else this.reverse(this.pos[c], this.pos[b])
   }
 
+  /** Replaces the tour by `order` (a restart from a kept tour); forgets the log. */
+  load(order: ArrayLike<number>): void {
+    this.order.set(order)
+    for (let i = 0; i < this.n; i++) this.pos[this.order[i]] = i
+    this.log.length = 0
+  }
+
   /** Marks the log so later changes can be undone with `undoTo`. */
   mark(): number {
     return this.log.length

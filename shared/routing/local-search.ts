@@ -1,6 +1,8 @@
 import type { ArrayTour } from './array-tour'
 import type { CostModel } from './cost-model'
 import { PathCosts } from './path-costs'
+import { LinKernighanStep } from './tour-lk'
+import { ThreeOptScan } from './tour-three-opt'
 
 // Smallest gain worth a move: guards against looping on floating-point noise.
 const MIN_GAIN = 1e-9
@@ -19,6 +21,8 @@ export class LocalSearch {
   private head = 0
   private size = 0
   private readonly paths: PathCosts | null
+  private readonly threeOpt: ThreeOptScan | null
+  private readonly lk: LinKernighanStep | null
   private readonly seg = new Int32Array(MAX_SEGMENT)
   private bestDelta = 0
   private best: number[] = []
@@ -28,10 +32,13 @@ export class LocalSearch {
     private readonly model: CostModel,
     private readonly neighbours: Int32Array,
     private readonly k: number,
+    useLk = false,
   ) {
     this.queue = new Int32Array(tour.n)
     this.queued = new Uint8Array(tour.n)
     this.paths = model.symmetric ? null : new PathCosts(tour, model)
+    this.threeOpt = model.symmetric ? new ThreeOptScan(tour, model, neighbours, k) : null
+    this.lk = model.symmetric && useLk ? new LinKernighanStep(tour, model, neighbours, k) : null
   }
 
   push(city: number): void {
@@ -94,7 +101,19 @@ export class LocalSearch {
     this.best = []
     this.scanTwoOpt(a)
     this.scanOrOpt(a)
+    if (this.threeOpt) {
+      const gain = this.threeOpt.scan(a, -this.bestDelta)
+      if (gain > 0) {
+        for (const city of this.threeOpt.apply()) this.push(city)
+        return -gain
+      }
+    }
     const move = this.best
+    if (move.length === 0 && this.lk) {
+      const gain = this.lk.run(a)
+      if (gain > 0) for (const city of this.lk.touched) this.push(city)
+      return -gain
+    }
     if (move.length === 0) return 0
     const delta = this.bestDelta
     if (move.length === 4) {

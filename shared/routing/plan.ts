@@ -3,6 +3,7 @@ import { aloneReason, bestInsertion, insertByRegret, placePinned } from './plan-
 import { improveRuns } from './plan-improve'
 import { buildPlanModel, formatClock, type PlanModel } from './plan-model'
 import { runCost, schedule } from './plan-schedule'
+import { improveWithEngine } from './plan-vrptw'
 import type { CrewRun, PlanInput, PlanItem, PlanResult, UnassignedItem, UnassignedReason } from './plan-types'
 
 export type * from './plan-types'
@@ -43,6 +44,8 @@ export function planRuns(input: PlanInput): PlanResult {
   improveRuns(m, seqs)
   // Improvement can free room: offer it to the items that did not fit, highest priority first.
   for (let round = 0; round < 3 && retryFull(m, reasons, seqs); round++) improveRuns(m, seqs)
+  // The VRPTW engine (vrptw/) searches further; its answer is kept only when the planner gains by it.
+  if (improveWithEngine(m, items, seqs, reasons)) improveRuns(m, seqs)
   return {
     runs: crews.map((crew, c) => toRun(m, items, crew.id, c, seqs[c])),
     unassigned: unassigned(items, reasons),

@@ -13,6 +13,7 @@ import { iteratedLocalSearch } from './ils'
 import { DEFAULT_TIME_LIMIT_MS, MAX_STOPS_WITH_COORDINATES, MAX_STOPS_WITH_MATRIX } from './limits'
 import { nearestNeighbours } from './neighbours'
 import { createRandom } from './prng'
+import { greedyEdgeTour } from './tour-greedy'
 
 export interface TourStop {
   id: string
@@ -70,7 +71,9 @@ export function solveTour(request: TourRequest, options: SolveOptions = {}): Tou
   } else {
     const k = Math.min(10, n - 1)
     const neighbours = nearestNeighbours(search, k)
-    const initial = nearestNeighbourTour(search, neighbours, k, startIndex)
+    const initial = search.symmetric
+      ? greedyEdgeTour(search, neighbours, k)
+      : nearestNeighbourTour(search, neighbours, k, startIndex)
     order = iteratedLocalSearch(search, initial, {
       neighbours,
       k,

@@ -29,6 +29,8 @@ export const fieldWorkers: readonly Role[] = ['crew', 'supervisor']
 export const planners: readonly Role[] = ['supervisor', 'manager', 'admin']
 /** Who read the office records (register, crews, certificates, isolations): everyone but the crews. */
 export const office: readonly Role[] = ['supervisor', 'manager', 'safety', 'admin']
+/** Who read the work queue: planners, and safety officers (only certificate work, server/routes/queue.ts). */
+export const queueReaders: readonly Role[] = ['supervisor', 'manager', 'safety', 'admin']
 /** Who sign safety records: certificates and isolation reviews. */
 export const safetyOfficers: readonly Role[] = ['safety', 'admin']
 /** Who read the audit log (who changed what, when): managers, safety officers and admins. */

@@ -4,21 +4,12 @@ import { judgeReadings, type RcdType } from '../../shared/test-limits'
 import type { z } from 'zod'
 import type { certificateBody } from '../../shared/schemas/certificates'
 import { syncCertificateItems } from './queue/certificates'
-import { isoDay } from '../../shared/iso-time'
+import { iso, isoDay } from '../../shared/iso-time'
+import { subjectLabels } from './certificate-subjects'
+import { latestDocuments } from './certificate-documents'
+import { kindsForSubject } from '../../shared/schemas/certificates'
 
 const DAY = 86_400_000
-
-async function subjectLabels(db: Db) {
-  const map = new Map<string, string>()
-  for (const p of await db('platforms').select('id', 'assetTag', 'name'))
-    map.set(`platform:${p.id}`, `${p.assetTag} ${p.name}`)
-  for (const s of await db('structures as st')
-    .join('sites as si', 'si.id', 'st.siteId')
-    .select('st.id', 'st.ref', 'st.kind', 'si.name'))
-    map.set(`structure:${s.id}`, `${s.ref} (${s.kind}, ${s.name})`)
-  for (const c of await db('circuits').select('id', 'ref')) map.set(`circuit:${c.id}`, `Circuit ${c.ref}`)
-  return map
-}
 
 /** A circuit's facts that a test is judged by: nominal volts, RCD rating and type (null = general). */
 async function circuitFacts(db: Db, ids?: number[]) {
@@ -64,6 +55,10 @@ export async function listCertificates(
   const rows = await b.orderBy('c.nextDue').limit(q.limit).select('c.*')
   const labels = await subjectLabels(db)
   const circuits = await circuitFacts(db)
+  const docs = await latestDocuments(
+    db,
+    rows.map((r) => r.id as number),
+  )
   return rows.map((r) => ({
     id: r.id,
     kind: r.kind,
@@ -81,16 +76,34 @@ export async function listCertificates(
       ? Math.round((Date.parse(`${r.nextDue}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / DAY)
       : null,
     circuit: r.subjectType === 'circuit' ? (circuits.get(r.subjectId) ?? null) : null,
+    document: docs.has(r.id)
+      ? {
+          name: docs.get(r.id)!.originalName,
+          contentType: docs.get(r.id)!.contentType,
+          sizeBytes: docs.get(r.id)!.sizeBytes,
+          uploadedAt: iso(docs.get(r.id)!.createdAt),
+        }
+      : null,
   }))
 }
 
 /** Records a test or inspection and brings the queue's certificate items in step; run it in a transaction. */
-export async function recordCertificate(db: Db, userId: number, body: z.infer<typeof certificateBody>) {
+export async function recordCertificate(
+  db: Db,
+  userId: number,
+  body: z.infer<typeof certificateBody>,
+  now = new Date(),
+) {
   const table = { platform: 'platforms', structure: 'structures', string: 'strings', circuit: 'circuits' }[
     body.subjectType
   ]
   if (!(await db(table).where({ id: body.subjectId }).first('id')))
     throw badRequest('unknown_subject', `No ${body.subjectType} with id ${body.subjectId}.`)
+  if (!kindsForSubject[body.subjectType].includes(body.kind))
+    throw badRequest(
+      'kind_not_for_subject',
+      `A ${body.subjectType} does not take this kind of test. Choose one of: ${kindsForSubject[body.subjectType].join(', ')}.`,
+    )
   const readings = await withCircuitDefaults(db, body)
   const judged = judgeReadings(body.kind, readings ?? {})
   const result = judged?.result ?? body.result
@@ -111,7 +124,8 @@ export async function recordCertificate(db: Db, userId: number, body: z.infer<ty
     notes: [body.notes, ...(judged?.reasons ?? [])].filter(Boolean).join(' ') || null,
     createdBy: userId,
   })
-  await syncCertificateItems(db, new Date())
+  // The record and the work it causes (a failed test, a date coming due) in one commit.
+  await syncCertificateItems(db, now)
   return { id, result, reasons: judged?.reasons ?? [], findings: judged?.findings ?? [] }
 }
 

@@ -19,6 +19,16 @@ export const certificateKindLabel: Record<(typeof certificateKinds)[number], str
   insulation_test: 'Insulation resistance test',
 }
 export const subjectTypes = ['platform', 'structure', 'string', 'circuit'] as const
+/** Which tests fit which subject: a column or anchor takes a structural test, a circuit an electrical one. */
+export const kindsForSubject: Record<
+  (typeof subjectTypes)[number],
+  readonly (typeof certificateKinds)[number][]
+> = {
+  platform: ['platform_exam', 'platform_pre_use'],
+  structure: ['column_structural', 'anchor_test'],
+  string: ['display_inspection'],
+  circuit: ['rcd_test', 'insulation_test'],
+}
 /** `general`: no intentional delay; `S`: time-delayed (selective). */
 export const rcdTypes = ['general', 'S'] as const
 
@@ -42,6 +52,10 @@ export const certificateRow = z.object({
   readings: z.record(z.string(), z.unknown()).nullable(),
   notes: z.string().nullable(),
   daysToDue: z.number().nullable(),
+  /** The certificate's document (the newest upload), fetched from /certificates/{id}/document. */
+  document: z
+    .object({ name: z.string(), contentType: z.string(), sizeBytes: z.number(), uploadedAt: z.string() })
+    .nullable(),
   /** A circuit subject's facts, so a new test starts from them; null for other subjects. */
   circuit: z
     .object({ supplyVolts: z.number(), rcdMa: z.number().nullable(), rcdType: z.enum(rcdTypes) })
@@ -93,4 +107,54 @@ export const certificateCreated = z.object({
   reasons: z.array(z.string()),
   /** The same reasons with stable codes and how much each weighs. */
   findings: z.array(findingSchema),
+})
+
+/**
+ * Days before expiry at which a certificate comes into the queue and the safety officers are e-mailed
+ * (a first notice a month ahead, a second a fortnight ahead: common practice, no source). A third
+ * e-mail goes on the day it expires.
+ */
+export const CERTIFICATE_NOTICE_DAYS = [30, 14] as const
+export const reminderStages = ['days_30', 'days_14', 'expired'] as const
+export type ReminderStage = (typeof reminderStages)[number]
+
+/** Which notice a certificate with `daysLeft` to its next due date has reached; null: none yet. */
+export function reminderStage(daysLeft: number): ReminderStage | null {
+  if (daysLeft <= 0) return 'expired'
+  if (daysLeft <= CERTIFICATE_NOTICE_DAYS[1]) return 'days_14'
+  if (daysLeft <= CERTIFICATE_NOTICE_DAYS[0]) return 'days_30'
+  return null
+}
+
+/** The queue kinds a safety officer sees: certificate work (due, failed tests, failed RCDs). */
+export const safetyQueueKinds = ['certificate_due', 'rcd_failed'] as const
+
+/** Finding a subject to record its first certificate: by asset tag, reference or name. */
+export const subjectQuery = z.object({
+  q: z.string().trim().min(1).max(60),
+  subjectType: z.enum(subjectTypes).optional(),
+})
+export const subjectList = z.object({
+  items: z.array(z.object({ subjectType: z.enum(subjectTypes), subjectId: z.number(), label: z.string() })),
+})
+
+/** The multipart field of a certificate's document, its largest size and the types its bytes may be. */
+export const CERTIFICATE_DOCUMENT_FIELD = 'document'
+export const CERTIFICATE_DOCUMENT_MAX_MB = 10
+export const certificateDocumentTypes = ['application/pdf', 'image/jpeg', 'image/png'] as const
+export const certificateDocumentBody = z.object({
+  [CERTIFICATE_DOCUMENT_FIELD]: z
+    .unknown()
+    .optional()
+    .meta({
+      type: 'string',
+      format: 'binary',
+      description: `PDF, JPEG or PNG (checked by its bytes), at most ${CERTIFICATE_DOCUMENT_MAX_MB} MB.`,
+    }),
+})
+export const certificateDocumentSaved = z.object({
+  name: z.string(),
+  contentType: z.enum(certificateDocumentTypes),
+  sizeBytes: z.number(),
+  uploadedAt: z.string(),
 })

@@ -1,65 +1,98 @@
-// Certificates in the queue: the newest record per subject and kind opens an item when it falls due
-// within the lead time or records a failed RCD test; a newer record that settles it closes the item.
-import { closeItems, openItem, ACTIVE } from './items'
+// Certificates in the queue. The newest record per subject and kind counts:
+//   - a failed test opens an item at once (a failed RCD test its own emergency kind, a failed
+//     insulation test an emergency, any other failed test or examination a standard item);
+//   - a certificate coming up to its next due date opens an item 30 days before it, and a fresh one
+//     14 days before (the 30-day item closes then), which stays until a newer record settles it.
+// A newer record that passes, or moves the due date out, closes the item. Run in the transaction of
+// the record that causes it, so the record and its work are one commit.
+import { closeItems, openItem, ACTIVE, type OpenItem } from './items'
 import type { Db } from '../../db'
-import { isoDay } from '../../../shared/iso-time'
-import { endOfLocalDay } from '../../../shared/local-time'
+import { endOfLocalDay, formatDay, localDay } from '../../../shared/local-time'
 import { clientZones } from '../zones'
 import { config } from '../../config'
+import { subjectLabels, subjectPlaces } from '../certificate-subjects'
+import { certificateKindLabel, CERTIFICATE_NOTICE_DAYS } from '../../../shared/schemas/certificates'
 
 const DAY = 86_400_000
-/** Certificates come into the queue this many days before they fall due (common practice, no source). */
-export const CERTIFICATE_LEAD_DAYS = 14
+/** Kinds whose failure leaves a live circuit without proven protection: emergency work. */
+const EMERGENCY_FAILS = new Set(['insulation_test'])
 
-export async function syncCertificateItems(db: Db, now = new Date()) {
-  const certs = await db('certificates as c')
+export interface LatestCertificate {
+  id: number
+  kind: keyof typeof certificateKindLabel
+  subjectType: string
+  subjectId: number
+  reference: string | null
+  doneOn: string
+  nextDue: string | null
+  result: 'pass' | 'fail' | 'advisory'
+}
+
+/** The newest record per subject and kind: the one that counts. */
+export function latestCertificates(db: Db): Promise<LatestCertificate[]> {
+  return db('certificates as c')
     .whereRaw(
       'c.id = (select max(c2.id) from certificates c2 where c2.kind = c.kind and c2.subject_type = c.subject_type and c2.subject_id = c.subject_id)',
     )
-    .select('c.id', 'c.kind', 'c.subjectType', 'c.subjectId', 'c.reference', 'c.nextDue', 'c.result')
-  const soon = isoDay(now.getTime() + CERTIFICATE_LEAD_DAYS * DAY)
-  const places = await certificatePlaces(db)
-  const zones = await clientZones(db)
+    .select(
+      'c.id',
+      'c.kind',
+      'c.subjectType',
+      'c.subjectId',
+      'c.reference',
+      'c.doneOn',
+      'c.nextDue',
+      'c.result',
+    )
+}
+
+/** Whole days from `today` to `day`, both calendar days (negative once past). */
+export const daysUntil = (today: string, day: string) =>
+  Math.round((Date.parse(`${day}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / DAY)
+
+export async function syncCertificateItems(db: Db, now = new Date()) {
+  const certs = await latestCertificates(db)
+  const [places, zones, labels] = await Promise.all([subjectPlaces(db), clientZones(db), subjectLabels(db)])
   const wanted = new Set<string>()
+  const locale = config.APP_LOCALE
   for (const c of certs) {
     const place = places.get(`${c.subjectType}:${c.subjectId}`) ?? { siteId: null, clientId: null }
-    const label = c.reference ?? `${c.subjectType} ${c.subjectId}`
-    if (c.kind === 'rcd_test' && c.result === 'fail') {
-      const subject = `circuit-rcd:${c.subjectId}`
-      wanted.add(`rcd_failed:${subject}`)
-      await openItem(
-        db,
-        {
-          kind: 'rcd_failed',
-          subject,
-          severity: 'emergency',
-          certificateId: c.id,
-          ...place,
-          summary: `RCD test failed: ${label}`,
-        },
-        now,
-      )
-    } else if (c.nextDue && c.nextDue <= soon) {
-      const subject = `certificate:${c.kind}:${c.subjectType}:${c.subjectId}`
-      wanted.add(`certificate_due:${subject}`)
-      await openItem(
-        db,
-        {
-          kind: 'certificate_due',
-          subject,
-          severity: 'standard',
-          certificateId: c.id,
-          ...place,
-          // Due "on" a date: the end of that day on the client's clock.
-          dueBy: endOfLocalDay(
-            c.nextDue,
-            (place.clientId && zones.get(place.clientId)) || config.APP_TIME_ZONE,
-          ),
-          summary: `${label} due ${c.nextDue}`,
-        },
-        now,
-      )
+    const zone = (place.clientId && zones.get(place.clientId)) || config.APP_TIME_ZONE
+    const label =
+      labels.get(`${c.subjectType}:${c.subjectId}`) ?? c.reference ?? `${c.subjectType} ${c.subjectId}`
+    const what = certificateKindLabel[c.kind] ?? c.kind
+    const open = async (
+      kind: 'rcd_failed' | 'certificate_due',
+      subject: string,
+      o: Pick<OpenItem, 'severity' | 'summary' | 'dueBy'>,
+    ) => {
+      wanted.add(`${kind}:${subject}`)
+      await openItem(db, { kind, subject, certificateId: c.id, ...place, ...o }, now)
     }
+    if (c.result === 'fail') {
+      if (c.kind === 'rcd_test')
+        await open('rcd_failed', `circuit-rcd:${c.subjectId}`, {
+          severity: 'emergency',
+          summary: `RCD test failed: ${label}`,
+        })
+      else
+        await open('certificate_due', `failed:${c.kind}:${c.subjectType}:${c.subjectId}`, {
+          severity: EMERGENCY_FAILS.has(c.kind) ? 'emergency' : 'standard',
+          summary: `Failed: ${what}, ${label} (${formatDay(c.doneOn, locale)})`,
+        })
+      continue
+    }
+    if (!c.nextDue) continue
+    const left = daysUntil(localDay(now, zone), c.nextDue)
+    if (left > CERTIFICATE_NOTICE_DAYS[0]) continue
+    const stage = left <= CERTIFICATE_NOTICE_DAYS[1] ? CERTIFICATE_NOTICE_DAYS[1] : CERTIFICATE_NOTICE_DAYS[0]
+    const when = formatDay(c.nextDue, locale)
+    await open('certificate_due', `${stage}d:${c.kind}:${c.subjectType}:${c.subjectId}`, {
+      severity: 'standard',
+      // Due "on" a date: the end of that day on the client's clock.
+      dueBy: endOfLocalDay(c.nextDue, zone),
+      summary: left < 0 ? `${what} expired ${when}: ${label}` : `${what} due ${when}: ${label}`,
+    })
   }
   const open = await db('queueItems')
     .whereIn('kind', ['rcd_failed', 'certificate_due'])
@@ -67,19 +100,4 @@ export async function syncCertificateItems(db: Db, now = new Date()) {
     .select('id', 'openKey')
   const settled = open.filter((i) => !wanted.has(i.openKey)).map((i) => i.id as number)
   await closeItems(db, settled, { now })
-}
-
-/** Where a certificate's subject stands: structures and circuits belong to a site; platforms to none. */
-async function certificatePlaces(db: Db) {
-  const map = new Map<string, { siteId: number | null; clientId: number | null }>()
-  const structures = await db('structures as st')
-    .join('sites as si', 'si.id', 'st.siteId')
-    .select('st.id', 'si.id as siteId', 'si.clientId')
-  for (const s of structures) map.set(`structure:${s.id}`, { siteId: s.siteId, clientId: s.clientId })
-  const circuits = await db('circuits as ci')
-    .join('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
-    .join('sites as si', 'si.id', 'sp.siteId')
-    .select('ci.id', 'si.id as siteId', 'si.clientId')
-  for (const c of circuits) map.set(`circuit:${c.id}`, { siteId: c.siteId, clientId: c.clientId })
-  return map
 }

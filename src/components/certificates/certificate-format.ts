@@ -1,6 +1,7 @@
 import { judgeReadings, type Judged } from '../../../shared/test-limits'
 import type { CertificateKind, CertificateReadings, CertificateRecord, DueFilter } from '../../api/safety'
 import { addDays, daysBetween } from '../../dates'
+import { kindsForSubject } from '../../../shared/schemas/certificates'
 
 export type Result = CertificateRecord['result']
 export type SubjectType = CertificateRecord['subjectType']
@@ -16,13 +17,8 @@ export const DUE_FILTERS: { value: DueFilter; label: string }[] = [
   { value: 'failed', label: 'Failed' },
 ]
 
-/** Which tests fit which subject: a new test on a row may change kind only within these. */
-export const KINDS_FOR_SUBJECT: Record<SubjectType, CertificateKind[]> = {
-  platform: ['platform_exam', 'platform_pre_use'],
-  structure: ['column_structural', 'anchor_test'],
-  string: ['display_inspection'],
-  circuit: ['rcd_test', 'insulation_test'],
-}
+/** Which tests fit which subject: a new test on a row may change kind only within these (shared with the server). */
+export const KINDS_FOR_SUBJECT = kindsForSubject
 
 /** Kinds whose readings decide pass or fail on the server; the others take the inspector's result. */
 export function judgedByReadings(kind: CertificateKind): boolean {

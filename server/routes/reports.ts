@@ -3,9 +3,15 @@ import {
   eraseEmailResult,
   refParam,
   reportBody,
+  reportCreated,
   reportStatus,
   streetList,
 } from '../../shared/schemas/reports'
+import { reportPhotoBody, reportPhotoResult } from '../../shared/schemas/report-work'
+import { idParam } from '../../shared/schemas/common'
+import { everyone } from '../../shared/roles'
+import { memoryUpload } from '../middleware/upload'
+import { saveReportPhoto, sendReportPhoto } from '../services/report-photos'
 import { defineRoute, type RouteDef } from '../route-table'
 import { createReport, listStreets, reportStatus as loadStatus } from '../services/reports'
 import { eraseReporterEmail } from '../services/report-guards'
@@ -22,11 +28,12 @@ export const reportRoutes: RouteDef[] = [
     tag: 'public',
     summary:
       'Report a fault without an account; a repeated Idempotency-Key answers 200 with the first report. ' +
-      'An address given gets an acknowledgement with a status link',
+      'An address given gets an acknowledgement with a status link. The answer carries a one-time photoKey ' +
+      'for POST /reports/{ref}/photo',
     // Optional: the public form sends one made when it opens; other senders may leave it out.
     idempotency: 'optional',
     body: reportBody,
-    response: reportStatus,
+    response: reportCreated,
     status: 201,
     before: (deps) => [limitByAddress(deps.db, LIMITS.report)],
     handler: async ({ deps, body, req, res, idempotencyKey }) => {
@@ -71,6 +78,46 @@ export const reportRoutes: RouteDef[] = [
     handler: ({ deps, params, body }) =>
       deps.db.transaction((trx) => eraseReporterEmail(trx, params.ref, body.token)),
   }),
+  defineRoute({
+    method: 'post',
+    path: '/reports/:ref/photo',
+    access: 'public',
+    tag: 'public',
+    summary:
+      'Send the one photo a report may carry (multipart: field "photo", JPEG, PNG or WebP, and the ' +
+      'photoKey its answer gave); checked by its bytes like field photos; a repeat answers 200',
+    params: refParam,
+    body: reportPhotoBody,
+    bodyType: 'multipart',
+    response: reportPhotoResult,
+    status: 201,
+    // A photo counts as a report against the sender's limit.
+    before: (deps) => [limitByAddress(deps.db, LIMITS.report), memoryUpload(deps.config, 'photo', 1)],
+    handler: async ({ deps, params, body, req, res }) => {
+      const files = Array.isArray(req.files) ? req.files : []
+      const { created, result } = await saveReportPhoto(
+        deps.db,
+        deps.files,
+        params.ref,
+        body.photoKey,
+        files[0],
+      )
+      if (!created) res.status(200)
+      return result
+    },
+  }),
+  ...(['file', 'thumb'] as const).map((kind) =>
+    defineRoute({
+      method: 'get',
+      path: `/report-photos/:id/${kind}`,
+      access: everyone,
+      tag: 'queue',
+      summary: `A public report's photo${kind === 'thumb' ? ' thumbnail (320 px)' : ''}, for signed-in staff only. Served as image/jpeg, cached privately`,
+      params: idParam,
+      responseType: 'image/jpeg',
+      handler: ({ deps, params, res }) => sendReportPhoto(deps.db, deps.files, params.id, kind, res),
+    }),
+  ),
   defineRoute({
     method: 'get',
     path: '/public/streets',

@@ -1,4 +1,4 @@
-import { createHash, randomInt } from 'node:crypto'
+import { createHash, randomBytes, randomInt } from 'node:crypto'
 import type { z } from 'zod'
 import type { Db } from '../db'
 import type { Config } from '../config'
@@ -9,6 +9,7 @@ import { writeOnce } from './keyed-write'
 import { iso } from '../../shared/iso-time'
 import { queueReportMail } from '../mail/report-mail'
 import { looksAutomated } from './report-guards'
+import { issuePhotoKey } from './report-photos'
 
 // Crockford-style alphabet without I, L, O, U: easy to read out over the phone.
 const ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ'
@@ -20,7 +21,8 @@ type ReportBody = z.infer<typeof reportBody>
  * Records a public report, opens or joins its queue item and queues the acknowledgement e-mail, all in
  * one commit; returns the outbox id to send after it. The form's Idempotency-Key, when sent, makes a
  * repeated send (the answer was lost) return the first report instead of a second. A sender that
- * looks automated (report-guards.ts) gets the same-looking answer and nothing is stored.
+ * looks automated (report-guards.ts) gets the same-looking answer and nothing is stored. The answer
+ * carries a one-time `photoKey` for sending one photo with the report (report-photos.ts).
  */
 export async function createReport(
   db: Db,
@@ -30,7 +32,10 @@ export async function createReport(
   key: string | null = null,
   now = new Date(),
 ) {
-  if (looksAutomated(body, now)) return { created: true, report: decoyStatus(now), mailId: null }
+  if (looksAutomated(body, now)) {
+    const photoKey = randomBytes(24).toString('base64url')
+    return { created: true, report: { ...decoyStatus(now), photoKey }, mailId: null }
+  }
   let mailId: number | null = null
   const { created, result: ref } = await writeOnce(db, {
     index: 'reports_idempotency_key_unique',
@@ -65,7 +70,10 @@ export async function createReport(
       return report.ref
     },
   })
-  return { created, report: await reportStatus(db, ref), mailId }
+  // A fresh one-time key for the report's photo on each answer (a repeat's replaces the lost one's).
+  const stored = await db('reports').where({ ref }).first('id')
+  const photoKey = await issuePhotoKey(db, stored.id)
+  return { created, report: { ...(await reportStatus(db, ref)), photoKey }, mailId }
 }
 
 async function insertReport(db: Db, body: ReportBody, sourceIp: string, key: string | null, now: Date) {

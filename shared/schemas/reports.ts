@@ -63,6 +63,10 @@ export const reportStatus = z.object({
     }),
   ),
 })
+/** The answer to a new report: its status, plus a one-time key to send one photo with it. */
+export const reportCreated = reportStatus.extend({
+  photoKey: z.string().describe('One-time key for POST /reports/{ref}/photo (field photoKey).'),
+})
 export const eraseEmailBody = z.object({ token: z.string().trim().min(20).max(100) })
 export const eraseEmailResult = z.object({ erased: z.boolean() })
 export const refParam = z.object({

@@ -7,7 +7,7 @@ import { plainDraft, type VisitDraft } from './visit-record'
 const KEEP_SENT_MS = 2 * 24 * 3600 * 1000
 
 let lastSeq = 0
-function nextSeq(): number {
+export function nextSeq(): number {
   // Microsecond-scaled clock so entries made in one millisecond still keep their order.
   lastSeq = Math.max(Date.now() * 1000, lastSeq + 1)
   return lastSeq

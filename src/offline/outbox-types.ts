@@ -2,8 +2,9 @@ import type { IsolationBody, VisitBody } from '../../shared/schemas/visits'
 import type { PhotoItem } from '../../shared/schemas/photos'
 import type { VisitResult } from '../api/visits'
 import type { VisitDraft } from './visit-record'
+import type { EmergencyLog, EmergencyLogBody } from '../../shared/schemas/report-work'
 
-export type EntryKind = 'isolation' | 'visit' | 'photo'
+export type EntryKind = 'isolation' | 'visit' | 'photo' | 'emergency'
 /** pending: waiting or retrying; failed: the server refused it (4xx) and a person must decide; sent: done. */
 export type EntryState = 'pending' | 'failed' | 'sent'
 
@@ -51,13 +52,23 @@ export interface PhotoEntry extends EntryBase {
   kind: 'photo'
   /** The visit's own key: its id is only known once the visit has been accepted. */
   visitKey: string
+  /** Set instead for an emergency log's photo: the log's key (emergency-record.ts). */
+  logKey?: string
   fileName: string
   /** Dropped once sent, to give the phone its storage back. */
   file: Blob | null
   result: PhotoItem | null
 }
 
-export type OutboxEntry = IsolationEntry | VisitEntry | PhotoEntry
+/** The crew's log of an emergency (hazard report) stop; `stringId` is 0 for a report placed by street only. */
+export interface EmergencyEntry extends EntryBase {
+  kind: 'emergency'
+  itemId: number
+  body: EmergencyLogBody
+  result: EmergencyLog | null
+}
+
+export type OutboxEntry = IsolationEntry | VisitEntry | PhotoEntry | EmergencyEntry
 
 /** One save of the visit form as the form hands it over: its requests, built, and what was typed. */
 export interface QueuedSave {

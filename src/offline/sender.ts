@@ -4,7 +4,8 @@
 import { ApiError } from '../api/http'
 import { visitsApi } from '../api/visits'
 import { listEntries, putEntry } from './outbox-repo'
-import type { EntryError, OutboxEntry, VisitEntry } from './outbox-types'
+import { reportWorkApi } from '../api/report-work'
+import type { EmergencyEntry, EntryError, OutboxEntry, PhotoEntry, VisitEntry } from './outbox-types'
 
 export interface SendHooks {
   userId: number
@@ -50,6 +51,11 @@ async function sendOne(entry: OutboxEntry, all: OutboxEntry[], hooks: SendHooks)
     const result = await visitsApi.logVisit(entry.key, entry.body)
     return { ...entry, state: 'sent', sentAt, lastError: null, result }
   }
+  if (entry.kind === 'emergency') {
+    const result = await reportWorkApi.logEmergency(entry.itemId, entry.key, entry.body)
+    return { ...entry, state: 'sent', sentAt, lastError: null, result }
+  }
+  if (entry.logKey) return sendLogPhoto(entry, all, hooks, sentAt)
   const visit = all.find((e): e is VisitEntry => e.kind === 'visit' && e.key === entry.visitKey)
   if (!visit?.result) throw new ApiError(400, 'visit_missing', 'The visit for this photo was discarded.')
   if (!entry.file) throw new ApiError(400, 'empty_file', 'The photo is no longer on this phone.')
@@ -59,6 +65,22 @@ async function sendOne(entry: OutboxEntry, all: OutboxEntry[], hooks: SendHooks)
       hooks.onProgress(entry.key, f),
     )
     return { ...entry, state: 'sent', sentAt, lastError: null, file: null, result: res.items[0] ?? null }
+  } finally {
+    hooks.onProgress(entry.key, null)
+  }
+}
+
+/** An emergency log's photo, once its log has been accepted. */
+async function sendLogPhoto(entry: PhotoEntry, all: OutboxEntry[], hooks: SendHooks, sentAt: string) {
+  const log = all.find((e): e is EmergencyEntry => e.kind === 'emergency' && e.key === entry.logKey)
+  if (!log?.result) throw new ApiError(400, 'log_missing', 'The emergency log for this photo was discarded.')
+  if (!entry.file) throw new ApiError(400, 'empty_file', 'The photo is no longer on this phone.')
+  hooks.onProgress(entry.key, 0)
+  try {
+    await reportWorkApi.emergencyPhoto(log.result.id, entry.key, entry.file, entry.fileName, (f) =>
+      hooks.onProgress(entry.key, f),
+    )
+    return { ...entry, state: 'sent' as const, sentAt, lastError: null, file: null }
   } finally {
     hooks.onProgress(entry.key, null)
   }

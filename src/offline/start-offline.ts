@@ -8,14 +8,14 @@ import { forgetSession, registerServiceWorker } from './register-sw'
 
 /**
  * Asks for the session once through the service worker, so its cache holds it. Sign-in itself never
- * calls /auth/me, and the very first visit runs before the worker controls the page: without this a
+ * calls /auth/session, and the very first visit runs before the worker controls the page: without this a
  * crew who signs in and loses signal straight away could not reopen the app.
  */
 async function warmSessionCache(): Promise<void> {
   if (!('serviceWorker' in navigator) || !navigator.onLine) return
   await navigator.serviceWorker.ready
   if (!navigator.serviceWorker.controller) return
-  await fetch(`${API_BASE}/auth/me`, {
+  await fetch(`${API_BASE}/auth/session`, {
     credentials: 'include',
     headers: { Accept: 'application/json' },
   }).catch(() => undefined)

@@ -27,7 +27,9 @@ describe('work queue', () => {
       severity: string
     }[]
     expect(items.length).toBeGreaterThan(5)
-    for (let i = 1; i < items.length; i++) expect(items[i - 1].score).toBeGreaterThanOrEqual(items[i].score)
+    // Emergencies first (issue 12: an emergency outranks every routine item), then by score.
+    const rank = (i: (typeof items)[number]) => (i.severity === 'emergency' ? 1000 : 0) + i.score
+    for (let i = 1; i < items.length; i++) expect(rank(items[i - 1])).toBeGreaterThanOrEqual(rank(items[i]))
     for (const it of items)
       expect(it.score).toBeCloseTo(it.scoreParts.risk + it.scoreParts.importance + it.scoreParts.clock, 0)
     // Demo contract: standard faults within 36 h on the town's streets (invented contract, values as in

@@ -89,14 +89,18 @@ function scenarios(ids: number[]): Scenario[] {
   const anyString = () => ids[Math.floor(r.next() * ids.length)]
   const c = CONNECTIONS
   const health: Scenario = { name: 'health', path: '/health', connections: c, token: null }
-  // The viewports of scripts/bench/bbox.ts: a phone at street zoom, every tenth a whole district.
+  // The viewports of scripts/bench/bbox.ts: a phone at street zoom (16), every tenth a whole
+  // district (zoom 12), through the map's compact route (GET /strings/map, grouped below zoom 15).
   let n = 0
   const bbox = (req: RequestStep): RequestStep => {
     const wide = n++ % 10 === 0
     const [w, h] = wide ? [0.2, 0.12] : [0.018, 0.007]
     const lng = -2.33 + r.next() * 0.4
     const lat = 54.02 + r.next() * 0.1
-    return { ...req, path: `/api/v1/strings?bbox=${lng},${lat},${lng + w},${lat + h}` }
+    return {
+      ...req,
+      path: `/api/v1/strings/map?bbox=${lng},${lat},${lng + w},${lat + h}&zoom=${wide ? 12 : 16}`,
+    }
   }
   return [
     health,
@@ -124,9 +128,9 @@ function scenarios(ids: number[]): Scenario[] {
       token: 'crew',
       step: (req) => ({ ...req, path: `/api/v1/strings/${anyString()}` }),
     },
-    { name: 'map bbox', path: '/strings', connections: c, token: 'crew', step: bbox },
-    { name: 'map bbox, one phone', path: '/strings', connections: 1, token: 'crew', step: bbox },
-    { name: 'queue', path: '/queue', connections: c, token: 'supervisor' },
+    { name: 'map bbox', path: '/strings/map', connections: c, token: 'crew', step: bbox },
+    { name: 'map bbox, one phone', path: '/strings/map', connections: 1, token: 'crew', step: bbox },
+    { name: 'queue (first page of 50)', path: '/queue', connections: c, token: 'supervisor' },
     { ...health, name: 'health (again)' },
   ]
 }

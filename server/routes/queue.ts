@@ -1,30 +1,30 @@
-import { planners } from '../../shared/roles'
+import { planners, queueReaders } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
-import {
-  closeBody,
-  mergeBody,
-  queueList,
-  queueQuery,
-  refreshResult,
-  snoozeBody,
-} from '../../shared/schemas/queue'
+import { closeBody, mergeBody, refreshResult, snoozeBody } from '../../shared/schemas/queue'
 import { defineRoute, type RouteDef } from '../route-table'
 import { closeItem, mergeItems, snoozeItem } from '../services/queue/actions'
-import { listQueue } from '../services/queue/list'
+import { listQueuePage } from '../services/queue/list'
+import { queuePage, queuePageQuery } from '../../shared/schemas/queue-page'
 import { refreshQueue } from '../jobs/refresh-queue'
+import { safetyQueuePage } from '../services/certificate-queue'
 import { audited } from '../services/audit'
 
 export const queueRoutes: RouteDef[] = [
   defineRoute({
     method: 'get',
     path: '/queue',
-    access: planners,
+    access: queueReaders,
     tag: 'queue',
-    summary: 'Work queue ranked by priority score, with filters',
-    query: queueQuery,
-    response: queueList,
-    handler: async ({ deps, query }) => ({
-      items: await listQueue(deps.db, query),
+    summary:
+      'Work queue ranked by priority score (emergencies first), with filters, one page at a time; safety officers see certificate work only (403 for other kinds)',
+    query: queuePageQuery,
+    response: queuePage,
+    handler: async ({ deps, query, user }) => ({
+      ...(user.role === 'safety'
+        ? await safetyQueuePage(deps.db, query)
+        : await listQueuePage(deps.db, query)),
+      page: query.page,
+      pageSize: query.pageSize,
       refreshedAt: new Date().toISOString(),
     }),
   }),

@@ -12,6 +12,8 @@ import { defineRoute, type RouteDef } from '../route-table'
 import { findByTag, listForMap } from '../services/strings'
 import { stringDetail as loadDetail } from '../services/string-detail'
 import { circuitLoad } from '../services/circuit-load'
+import { mapView as loadMapView } from '../services/map-view'
+import { mapView, mapViewQuery } from '../../shared/schemas/map-view'
 
 export const stringRoutes: RouteDef[] = [
   defineRoute({
@@ -23,6 +25,17 @@ export const stringRoutes: RouteDef[] = [
     query: bboxQuery,
     response: mapList,
     handler: ({ deps, query }) => listForMap(deps.db, query),
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/strings/map',
+    access: everyone,
+    tag: 'strings',
+    summary:
+      'The map in a bounding box at a zoom: each string alone from zoom 15 on, else grouped on the server; compact arrays',
+    query: mapViewQuery,
+    response: mapView,
+    handler: ({ deps, query }) => loadMapView(deps.db, query.bbox, query.zoom),
   }),
   defineRoute({
     method: 'get',

@@ -8,7 +8,8 @@ import { forecastInstant, localDay } from '../../shared/local-time'
 import { isoDay } from '../../shared/iso-time'
 import { conditionOf, stringStatus } from '../../shared/string-status'
 import { loadType } from './strings'
-import { syncStringQueue } from './queue/strings'
+import { syncStringItems } from './queue/string-items'
+import { updateById } from './update-by-id'
 
 export interface RiskWindow {
   /** Burning hours until someone is due to pass. */
@@ -17,20 +18,30 @@ export interface RiskWindow {
   label: string
 }
 
-/** The earliest published runs, from `fromDay` on, with a stop for each string not yet done. */
-export async function nextPatrolDays(db: Db, stringIds: number[], fromDay: string) {
+/**
+ * The earliest published runs, from `fromDay` on, with a stop for each string not yet done: for the
+ * strings given, or (null) for every string with such a stop.
+ */
+export async function nextPatrolDays(db: Db, stringIds: number[] | null, fromDay: string) {
   const out = new Map<number, string[]>()
-  for (let i = 0; i < stringIds.length; i += 1000) {
-    const rows = await db('runStops as rs')
+  const query = (ids: number[] | null) => {
+    const q = db('runStops as rs')
       .join('runs as r', 'r.id', 'rs.runId')
       .where('r.state', 'published')
       .where('r.runDate', '>=', fromDay)
       .whereNull('rs.doneAt')
-      .whereIn('rs.stringId', stringIds.slice(i, i + 1000))
+      .whereNotNull('rs.stringId')
       .orderBy('r.runDate')
       .select('rs.stringId', 'r.runDate')
-    for (const r of rows) out.set(r.stringId, [...(out.get(r.stringId) ?? []), String(r.runDate)])
+    return ids ? q.whereIn('rs.stringId', ids) : q
   }
+  const chunks = stringIds
+    ? Array.from({ length: Math.ceil(stringIds.length / 1000) }, (_, i) =>
+        stringIds.slice(i * 1000, i * 1000 + 1000),
+      )
+    : [null]
+  for (const ids of chunks)
+    for (const r of await query(ids)) out.set(r.stringId, [...(out.get(r.stringId) ?? []), String(r.runDate)])
   return out
 }
 
@@ -49,9 +60,16 @@ const dayLabel = (day: string) =>
 export function riskWindow(
   now: Date,
   patrolDays: string[] | undefined,
-  c: { switchOn: string; zone: string; responseStandardHours: number; burnHoursPerDay: number },
+  c: {
+    switchOn: string
+    zone: string
+    responseStandardHours: number
+    burnHoursPerDay: number
+    /** the client's today, when the caller has it (the refresh works it out once per zone) */
+    today?: string
+  },
 ): RiskWindow {
-  const today = localDay(now, c.zone)
+  const today = c.today ?? localDay(now, c.zone)
   const day = patrolDays?.find((d) => d >= today)
   const wallHours = day
     ? Math.max(0, (forecastInstant(day, c.switchOn, c.zone).getTime() - now.getTime()) / 3_600_000)
@@ -86,39 +104,53 @@ export const riskNote = (p: number, w: RiskWindow) =>
 /**
  * Applies the risk rule: a lit or watched string over its threshold becomes replace now (rule 'risk');
  * one flagged by risk that no longer is goes back to the state its lamps' ratios give. Answers each
- * string's status afterwards.
+ * changed string's status afterwards; their queue items follow in the same few statements.
  */
 export async function applyRiskRule(db: Db, outcomes: RiskOutcome[], now = new Date()) {
   const statusAfter = new Map<number, string>()
-  for (const o of outcomes) {
-    const fires = o.p !== null && o.threshold !== null && o.p > o.threshold
-    if (fires && (o.status === 'lit' || o.status === 'watch')) {
-      await db('strings')
-        .where({ id: o.id })
-        .whereIn('status', ['lit', 'watch'])
-        .update({
-          status: 'replace',
-          replaceNow: true,
-          replaceRule: 'risk',
-          riskNote: riskNote(o.p!, o.window),
-        })
-      await syncStringQueue(db, o.id, null, now)
-      statusAfter.set(o.id, 'replace')
-    } else if (!fires && o.replaceRule === 'risk') {
-      const s = await db('strings').where({ id: o.id }).first()
-      const { status, replaceNow, result } = stringStatus(await loadType(db, s.typeId), conditionOf(s))
-      await db('strings')
-        .where({ id: o.id, replaceRule: 'risk' })
-        .update({
-          status,
-          replaceNow,
-          replaceRule: replaceNow ? 'ratio' : null,
-          riskNote: null,
-          maxRatio: result.maxRatio,
-        })
-      await syncStringQueue(db, o.id, null, now)
-      statusAfter.set(o.id, status)
+  const fires = (o: RiskOutcome) => o.p !== null && o.threshold !== null && o.p > o.threshold
+  const flagged = outcomes.filter((o) => fires(o) && (o.status === 'lit' || o.status === 'watch'))
+  const cleared = outcomes.filter((o) => !fires(o) && o.replaceRule === 'risk')
+  await updateById(
+    db,
+    'strings',
+    flagged.map((o) => ({ id: o.id, riskNote: riskNote(o.p!, o.window) })),
+    ['riskNote'],
+    {
+      same: { status: 'replace', replaceNow: true, replaceRule: 'risk' },
+      also: "status in ('lit', 'watch')",
+    },
+  )
+  for (const o of flagged) statusAfter.set(o.id, 'replace')
+  const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
+  const rows: {
+    id: number
+    status: string
+    replaceNow: boolean
+    replaceRule: string | null
+    maxRatio: number
+  }[] = []
+  for (let i = 0; i < cleared.length; i += 1000) {
+    for (const s of await db('strings').whereIn(
+      'id',
+      cleared.slice(i, i + 1000).map((o) => o.id),
+    )) {
+      if (!types.has(s.typeId)) types.set(s.typeId, await loadType(db, s.typeId))
+      const { status, replaceNow, result } = stringStatus(types.get(s.typeId)!, conditionOf(s))
+      rows.push({
+        id: s.id,
+        status,
+        replaceNow,
+        replaceRule: replaceNow ? 'ratio' : null,
+        maxRatio: result.maxRatio,
+      })
+      statusAfter.set(s.id, status)
     }
   }
+  await updateById(db, 'strings', rows, ['status', 'replaceNow', 'replaceRule', 'maxRatio'], {
+    same: { riskNote: null },
+    also: "replace_rule = 'risk'",
+  })
+  await syncStringItems(db, [...statusAfter.keys()], now)
   return statusAfter
 }

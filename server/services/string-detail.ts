@@ -4,10 +4,11 @@ import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
 import { loadType } from './strings'
-import { exposureNow, stringAssessment, stringForecast } from './string-engine'
+import { exposureNow, stringAssessment, stringForecastRequest } from './string-engine'
+import { cachedForecast } from './forecast-cache'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
-import { clientZone } from './zones'
+import { config } from '../config'
 
 const parseLine = (v: unknown) =>
   (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
@@ -27,6 +28,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'si.accessNote',
       'c.switchOn',
       'c.switchOff',
+      'c.timeZone',
     )
   const circuit = s.circuitId
     ? await db('circuits as ci')
@@ -96,11 +98,15 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
           ],
         }
       : assessed
-  const fc = stringForecast(type, s, {
-    burnHoursPerDay: burn,
-    startDate: localDay(now, await clientZone(db, site.clientId)),
-    now,
-  })
+  // Kept per process by the engine's input: an unchanged string is not simulated again.
+  const fc = cachedForecast(
+    stringForecastRequest(type, s, {
+      burnHoursPerDay: burn,
+      // The client's own zone (zones.ts), read with the site rather than again.
+      startDate: localDay(now, site.timeZone || config.APP_TIME_ZONE),
+      now,
+    }),
+  )
   // Age and exposure as stored at the last change of state, plus the hours burned since.
   const age = exposureNow(type, s, burn, now)
   return {

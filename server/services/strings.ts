@@ -55,15 +55,34 @@ export async function findByTag(db: Db, tag: string) {
   return r as { id: number; assetTag: string }
 }
 
+const CLASS_COLUMNS = [
+  'label',
+  'count',
+  'ratedVolts',
+  'ratedAmps',
+  'shunted',
+  'ratedLifeHours',
+  'lifeExponent',
+] as const
+const classKey = (c: string) => `class${c[0].toUpperCase()}${c.slice(1)}`
+
+/** A string type with its lamp classes in order: one statement (the type's columns on each class row). */
 export async function loadType(db: Db, typeId: number) {
-  const t = await db('stringTypes').where({ id: typeId }).first()
-  if (!t) throw notFound('String type')
-  const classes = await db('lampClasses')
-    .where({ stringTypeId: typeId })
-    .orderBy('position')
-    .select('label', 'count', 'ratedVolts', 'ratedAmps', 'shunted', 'ratedLifeHours', 'lifeExponent')
-  return { ...t, classes: classes.map((c) => ({ ...c, shunted: Boolean(c.shunted) })) } as TypeSpec &
-    StringDetail['type'] & { id: number }
+  const rows: Record<string, unknown>[] = await db('stringTypes as st')
+    .leftJoin('lampClasses as lc', 'lc.stringTypeId', 'st.id')
+    .where('st.id', typeId)
+    .orderBy('lc.position')
+    .select('st.*', 'lc.id as classId', ...CLASS_COLUMNS.map((c) => `lc.${c} as ${classKey(c)}`))
+  if (!rows.length) throw notFound('String type')
+  const t: Record<string, unknown> = { ...rows[0] }
+  for (const c of ['classId', ...CLASS_COLUMNS]) delete t[c === 'classId' ? c : classKey(c)]
+  const classes = rows
+    .filter((r) => r.classId != null)
+    .map((r) => {
+      const k = Object.fromEntries(CLASS_COLUMNS.map((c) => [c, r[classKey(c)]]))
+      return { ...k, shunted: Boolean(k.shunted) }
+    })
+  return { ...t, classes } as unknown as TypeSpec & StringDetail['type'] & { id: number }
 }
 
 export type StringType = Awaited<ReturnType<typeof loadType>>

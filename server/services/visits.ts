@@ -3,28 +3,32 @@ import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
 import { conditionOf, shuntedLampCount, stateColumns, stringStatus } from '../../shared/string-status'
 import { applyVisit, brightLampsError, countErrors, isRelamping, lampTotal } from '../../shared/visit-rules'
-import { loadType, siteBurnHours } from './strings'
-import { exposureColumns } from './string-engine'
+import { loadType } from './strings'
+import { burnHoursPerDay } from '../../shared/schedule'
+import { exposureColumns, type StringRecord } from './string-engine'
 import { requireIsolatedFor } from './isolations'
-import { syncStringQueue } from './queue/strings'
+import { syncStringQueue, type KnownString } from './queue/strings'
 import { writeOnce } from './keyed-write'
+import { refreshSoon } from './queue/refresh-soon'
 
 const invalid = (field: string, message: string) =>
   badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
 
-async function existingVisit(db: Db, key: string) {
-  const v = await db('visits as v')
-    .join('strings as s', 's.id', 'v.stringId')
-    .where('v.idempotencyKey', key)
-    .first('v.id', 'v.brightLamps', 's.id as stringId', 's.lampsOut', 's.status', 's.replaceNow')
+/** The first send's visit with the string as it is now (the row the lock read). */
+async function existingVisit(db: Db, key: string, s: StringRow) {
+  const v = await db('visits').where({ idempotencyKey: key }).first('id', 'brightLamps')
   return v
     ? {
         id: v.id as number,
         brightLamps: v.brightLamps as number,
-        string: { id: v.stringId, lampsOut: v.lampsOut, status: v.status, replaceNow: !!v.replaceNow },
+        string: { id: s.id, lampsOut: s.lampsOut, status: s.status, replaceNow: !!s.replaceNow },
       }
     : undefined
 }
+
+/** A strings row as the lock reads it (every column). */
+type StringRow = StringRecord &
+  Omit<KnownString, 'clientId'> & { typeId: number; replaceNow: number | boolean }
 
 interface Author {
   id: number
@@ -36,20 +40,25 @@ interface Author {
  * the same idempotency key again returns the first visit instead of a second one.
  */
 export async function logVisit(db: Db, user: Author, key: string, body: VisitBody) {
+  // The row the lock reads is the row the visit works from: read once per attempt, not again.
+  let row: StringRow | undefined
   const { created, result } = await writeOnce(db, {
     index: 'visits_idempotency_key_unique',
     // A repeat waits for the first send on the string row, then finds its visit rather than counting
     // its lamps against the string the first send has already changed.
-    lock: (trx) => trx('strings').where({ id: body.stringId }).forUpdate().first('id'),
-    replay: (trx) => existingVisit(trx, key),
-    create: (trx) => insertVisit(trx, user, key, body),
+    lock: async (trx) => {
+      row = await trx('strings').where({ id: body.stringId }).forUpdate().first()
+      if (!row) throw notFound('String')
+    },
+    replay: (trx) => existingVisit(trx, key, row!),
+    create: (trx) => insertVisit(trx, user, key, body, row!),
   })
+  // The string's new forecast comes from a small refresh soon after; the visit does not wait for it.
+  if (created) refreshSoon()
   return { created, visit: result }
 }
 
-async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody) {
-  const s = await trx('strings').where({ id: body.stringId }).forUpdate().first()
-  if (!s) throw notFound('String')
+async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody, s: StringRow) {
   const type = await loadType(trx, s.typeId)
   const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
   if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
@@ -101,15 +110,23 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody) 
     lng: body.lng ?? null,
   })
   // The hours burned since the last change count at the ratios then in force, before this visit's change.
-  const burn = await siteBurnHours(trx, s.siteId)
+  const site = await trx('sites as si')
+    .join('clients as c', 'c.id', 'si.clientId')
+    .where('si.id', s.siteId)
+    .first('si.clientId', 'c.switchOn', 'c.switchOff')
+  if (!site) throw notFound('Site')
+  const state = stateColumns(cond, assessed)
   await trx('strings')
     .where({ id: s.id })
     .update({
-      ...exposureColumns(type, s, burn, now, { fuseReplaced: !!body.fuseReplaced }),
-      ...stateColumns(cond, assessed),
+      ...exposureColumns(type, s, burnHoursPerDay(site.switchOn, site.switchOff), now, {
+        fuseReplaced: !!body.fuseReplaced,
+      }),
+      ...state,
       lastVisitAt: now,
     })
-  await syncStringQueue(trx, s.id, id, now)
+  // The queue follows the string as just written: no need to read it back.
+  await syncStringQueue(trx, s.id, id, now, { ...s, ...state, clientId: site.clientId })
   return {
     id: id as number,
     brightLamps: body.brightLamps ?? 0,

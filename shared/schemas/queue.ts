@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { statusLabel, statusSchema, type StringStatus } from './string-states'
 import { reportClosedStates } from './reports'
+import { reportNote } from './report-work'
 
 export const queueKinds = [
   'replace_now',
@@ -77,6 +78,8 @@ export const queueItem = z.object({
   lng: z.number().nullable(),
   reportRef: z.string().nullable(),
   plannedCrewId: z.number().nullable(),
+  /** Public reports still waiting on this item: the reporters' words, place and photo. */
+  reports: z.array(reportNote),
 })
 export type QueueItem = z.infer<typeof queueItem>
 export const queueList = z.object({ items: z.array(queueItem), refreshedAt: z.string() })

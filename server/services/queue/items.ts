@@ -25,41 +25,80 @@ export interface OpenItem {
 
 const isDuplicate = (err: unknown) => (err as { code?: string }).code === 'ER_DUP_ENTRY'
 
+type ResponseHours = { responseEmergencyHours: number; responseStandardHours: number }
+
+/** The new row of an item: due by its own time, else its client's response time, else 36 h. */
+function itemRow(item: OpenItem, client: ResponseHours | undefined, now: Date) {
+  let dueBy = item.dueBy
+  if (!dueBy && client) {
+    const hours = item.severity === 'emergency' ? client.responseEmergencyHours : client.responseStandardHours
+    // Contract hours are elapsed hours: across a clock change the local due time moves by an hour.
+    dueBy = dueAfter(item.openedAt ?? now, hours)
+  }
+  return {
+    kind: item.kind,
+    openKey: `${item.kind}:${item.subject}`,
+    stringId: item.stringId ?? null,
+    reportId: item.reportId ?? null,
+    certificateId: item.certificateId ?? null,
+    siteId: item.siteId ?? null,
+    clientId: item.clientId ?? null,
+    severity: item.severity,
+    state: 'open',
+    openedAt: item.openedAt ?? now,
+    dueBy: dueBy ?? dueAfter(now, 36),
+    summary: item.summary.slice(0, 255),
+  }
+}
+
+const responseColumns = ['responseEmergencyHours', 'responseStandardHours'] as const
+
 /** Opens a queue item unless one is already open for the same kind and subject; returns its id. */
 export async function openItem(db: Db, item: OpenItem, now = new Date()): Promise<number> {
   const openKey = `${item.kind}:${item.subject}`
   const existing = await db('queueItems').where({ openKey }).first('id')
   if (existing) return existing.id
-  let dueBy = item.dueBy
-  if (!dueBy && item.clientId) {
-    const c = await db('clients')
-      .where({ id: item.clientId })
-      .first('responseEmergencyHours', 'responseStandardHours')
-    const hours = item.severity === 'emergency' ? c.responseEmergencyHours : c.responseStandardHours
-    // Contract hours are elapsed hours: across a clock change the local due time moves by an hour.
-    dueBy = dueAfter(item.openedAt ?? now, hours)
-  }
+  const client =
+    !item.dueBy && item.clientId
+      ? await db('clients')
+          .where({ id: item.clientId })
+          .first(...responseColumns)
+      : undefined
   try {
-    const [id] = await db('queueItems').insert({
-      kind: item.kind,
-      openKey,
-      stringId: item.stringId ?? null,
-      reportId: item.reportId ?? null,
-      certificateId: item.certificateId ?? null,
-      siteId: item.siteId ?? null,
-      clientId: item.clientId ?? null,
-      severity: item.severity,
-      state: 'open',
-      openedAt: item.openedAt ?? now,
-      dueBy: dueBy ?? dueAfter(now, 36),
-      summary: item.summary.slice(0, 255),
-    })
+    const [id] = await db('queueItems').insert(itemRow(item, client, now))
     return id
   } catch (err) {
     // Opened at the same moment elsewhere (the job and a new report): that item is the one. A locking
     // read: a plain one inside a transaction sees only what was committed before its first read.
     if (!isDuplicate(err)) throw err
     return (await db('queueItems').where({ openKey }).forShare().first('id')).id
+  }
+}
+
+/**
+ * Opens many items at once (the refresh): those whose kind and subject have no open item, in a few
+ * statements. One opened meanwhile elsewhere (a visit) wins: the duplicate key leaves it as it is.
+ */
+export async function openItems(db: Db, items: OpenItem[], now = new Date()): Promise<void> {
+  const clients = new Map<number, ResponseHours | undefined>()
+  for (let i = 0; i < items.length; i += 500) {
+    const chunk = items.slice(i, i + 500)
+    const keys = chunk.map((it) => `${it.kind}:${it.subject}`)
+    const open = new Set(await db('queueItems').whereIn('openKey', keys).pluck('openKey'))
+    const fresh = chunk.filter((_, k) => !open.has(keys[k]))
+    if (!fresh.length) continue
+    const wanted = [...new Set(fresh.map((it) => it.clientId))].filter(
+      (id): id is number => !!id && !clients.has(id),
+    )
+    if (wanted.length)
+      for (const c of await db('clients')
+        .whereIn('id', wanted)
+        .select('id', ...responseColumns))
+        clients.set(c.id, c)
+    const rows = fresh.map((it) =>
+      itemRow(it, it.dueBy || !it.clientId ? undefined : clients.get(it.clientId), now),
+    )
+    await db('queueItems').insert(rows).onConflict('openKey').merge(['openKey'])
   }
 }
 

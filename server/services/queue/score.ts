@@ -20,6 +20,8 @@ interface Row {
   hazard?: number | boolean | null
   importance?: number | null
   summary: string
+  /** `kind:subject` while open (queue/items.ts). */
+  openKey?: string | null
 }
 
 const clamp = (x: number, lo = 0, hi = 1) => Math.min(hi, Math.max(lo, x))
@@ -64,6 +66,12 @@ export function scoreItem(r: Row, now: Date) {
       why.push('RCD failed its test: no additional protection')
       break
     default:
+      // A failed test or examination (queue/certificates.ts opens it as `certificate_due:failed:…`).
+      if (r.openKey?.startsWith('certificate_due:failed:')) {
+        risk = r.severity === 'emergency' ? 50 : 40
+        why.push('Failed its test or examination: do not rely on it until a new test passes')
+        break
+      }
       risk = hoursLeft < 0 ? 35 : 15
       why.push(hoursLeft < 0 ? 'Certificate overdue' : 'Certificate falls due soon')
   }

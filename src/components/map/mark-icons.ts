@@ -1,5 +1,6 @@
 import { divIcon as leafletDivIcon, type DivIconOptions, type Icon } from 'leaflet/dist/leaflet-src.esm'
 import { STATE_WORDS, type StringState } from '../common/string-state'
+import { URGENCY_ORDER } from '../../api/map-view'
 
 // The same shapes as components/common/StateMark.vue, as markup Leaflet can place on the map.
 // Shape and word carry the state; colour only adds to them.
@@ -19,11 +20,12 @@ export function shapeSvg(state: StringState): string {
 
 // What a cluster bubble shows: the state that most needs a crew. Made safe sits above Watch
 // because the string is off until repaired, but below Replace now and Dark, which nobody has
-// dealt with yet.
-export const STATE_URGENCY: Record<StringState, number> = { lit: 0, watch: 1, safe: 2, replace: 3, dark: 4 }
-export const BY_URGENCY = Object.keys(STATE_URGENCY).sort(
-  (a, b) => STATE_URGENCY[a as StringState] - STATE_URGENCY[b as StringState],
-) as StringState[]
+// dealt with yet. The order is shared with the server, which groups strings the same way.
+export const BY_URGENCY = [...URGENCY_ORDER] as StringState[]
+export const STATE_URGENCY = Object.fromEntries(BY_URGENCY.map((s, i) => [s, i])) as Record<
+  StringState,
+  number
+>
 
 // vue-leaflet types its icon prop as a plain Icon; a DivIcon is one at run time.
 const divIcon = (options: DivIconOptions) => leafletDivIcon(options) as unknown as Icon

@@ -1,6 +1,7 @@
 import { onBeforeUnmount, ref, shallowRef } from 'vue'
 import { ApiError } from '../../api/http'
-import { stringsApi, type Bbox, type MapItem } from '../../api/strings'
+import type { Bbox, MapItem } from '../../api/strings'
+import { MAP_DETAIL_ZOOM, mapViewApi, type MapCluster } from '../../api/map-view'
 
 // Wait for the map to settle before asking: a pan is often several moves in a row.
 const DEBOUNCE_MS = 250
@@ -17,36 +18,50 @@ function contains(outer: Bbox, inner: Bbox): boolean {
   return outer[0] <= inner[0] && outer[1] <= inner[1] && outer[2] >= inner[2] && outer[3] >= inner[3]
 }
 
-/** Strings around the visible map, refreshed as it moves; stale requests are cancelled. */
+/**
+ * Strings around the visible map, refreshed as it moves; stale requests are cancelled. Below
+ * MAP_DETAIL_ZOOM the server sends groups (`clusters`) and the strings standing alone; from it on,
+ * every string, which the map groups itself where marks would overlap.
+ */
 export function useMapStrings() {
   const items = shallowRef<MapItem[]>([])
-  const truncated = ref(false)
+  const clusters = shallowRef<MapCluster[]>([])
   const loading = ref(false)
   const error = shallowRef<ApiError | null>(null)
-  let covered: Bbox | null = null
+  let covered: { box: Bbox; zoom: number; whole: boolean } | null = null
   let controller: AbortController | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
-  let lastView: Bbox | null = null
+  let lastView: { view: Bbox; zoom: number } | null = null
 
-  function viewChanged(view: Bbox): void {
-    lastView = view
+  function viewChanged(view: Bbox, zoom: number): void {
+    lastView = { view, zoom }
     clearTimeout(timer)
-    timer = setTimeout(() => void load(view), DEBOUNCE_MS)
+    timer = setTimeout(() => void load(view, zoom), DEBOUNCE_MS)
   }
 
-  async function load(view: Bbox, force = false): Promise<void> {
-    // Zooming in or a short pan stays inside what we already hold, unless that answer was cut short.
-    if (!force && covered && !truncated.value && contains(covered, view)) return
+  /** Does the last answer already show this view as it should be drawn at this zoom? */
+  function holds(view: Bbox, zoom: number): boolean {
+    if (!covered || !contains(covered.box, view)) return false
+    // Every string, one by one: right for any zoom from the detail zoom on.
+    if (covered.whole) return zoom >= MAP_DETAIL_ZOOM
+    // Groups are made for one zoom.
+    return Math.floor(zoom) === covered.zoom
+  }
+
+  async function load(view: Bbox, zoom: number, force = false): Promise<void> {
+    if (!force && holds(view, zoom)) return
     controller?.abort()
     const mine = (controller = new AbortController())
     const box = padBbox(view)
     loading.value = true
     error.value = null
     try {
-      const res = await stringsApi.inBox(box, mine.signal)
+      const res = await mapViewApi.get(box, zoom, mine.signal)
       items.value = res.items
-      truncated.value = res.truncated
-      covered = box
+      clusters.value = res.clusters
+      // With no groups at the detail zoom the answer holds every string, lines included.
+      const z = Math.floor(zoom)
+      covered = { box, zoom: z, whole: res.clusters.length === 0 && z >= MAP_DETAIL_ZOOM }
     } catch (err) {
       if (mine.signal.aborted) return
       error.value = err instanceof ApiError ? err : new ApiError(0, 'client_error', String(err))
@@ -56,7 +71,7 @@ export function useMapStrings() {
   }
 
   function reload(): Promise<void> {
-    return lastView ? load(lastView, true) : Promise.resolve()
+    return lastView ? load(lastView.view, lastView.zoom, true) : Promise.resolve()
   }
 
   onBeforeUnmount(() => {
@@ -64,5 +79,5 @@ export function useMapStrings() {
     controller?.abort()
   })
 
-  return { items, truncated, loading, error, viewChanged, load, reload }
+  return { items, clusters, loading, error, viewChanged, load, reload }
 }

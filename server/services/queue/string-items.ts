@@ -1,0 +1,163 @@
+// The rule of a string's state items in one place, for one string (a visit) or thousands (the
+// refresh): what to close and what to open, worked out from the string and its active items, then
+// written in a few statements for the lot. And which strings are out of step with their items at all,
+// found by MariaDB, so a refresh touches only those.
+import { stringStatusKind, type QueueKind } from '../../../shared/schemas/queue'
+import type { StringStatus } from '../../../shared/schemas/string-states'
+import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
+import type { Db } from '../../db'
+
+export const STATE_KINDS = Object.values(stringStatusKind) as QueueKind[]
+const NEEDING = Object.keys(stringStatusKind) as StringStatus[]
+const CHUNK = 1000
+
+/** The columns of a string the rule reads (with its site's client). */
+export interface QueuedString {
+  id: number
+  assetTag: string
+  name: string
+  status: string
+  lampsOut: number
+  replaceRule: string | null
+  riskNote: string | null
+  siteId: number
+  archivedAt: Date | null
+  clientId: number
+}
+
+export interface ActiveItem {
+  id: number
+  stringId: number
+  kind: QueueKind
+}
+
+export interface StringPlan {
+  /** items to close because the string was archived (reports stay) */
+  archived: number[]
+  /** items to close because the string's state has moved on */
+  close: number[]
+  open: OpenItem | null
+}
+
+/**
+ * A string dark or to be replaced now has that item, and its "may go dark" forecast item gives way to
+ * it; one lit, on watch or made safe has none. Only a visit closes the public reports on a string
+ * (its crew saw it); a changed threshold does not answer a reporter.
+ */
+export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: number | null): StringPlan {
+  if (s.archivedAt) {
+    const ids = active.filter((i) => i.kind === 'forecast_dark' || STATE_KINDS.includes(i.kind))
+    return { archived: ids.map((i) => i.id), close: [], open: null }
+  }
+  const kind: QueueKind | undefined = stringStatusKind[s.status as keyof typeof stringStatusKind]
+  const settled: QueueKind[] = kind
+    ? [...STATE_KINDS.filter((k) => k !== kind), 'forecast_dark']
+    : [...STATE_KINDS, 'forecast_dark', ...(visitId ? ['public_report' as const] : [])]
+  const close = active.filter((i) => settled.includes(i.kind)).map((i) => i.id)
+  if (!kind) return { archived: [], close, open: null }
+  // The summary says which rule fired: the lamps' voltage ratio, or the forecast's risk.
+  const summary =
+    kind === 'dark'
+      ? `${s.assetTag} ${s.name} is dark`
+      : s.replaceRule === 'risk' && s.riskNote
+        ? `${s.assetTag} ${s.name}: replace now, ${s.riskNote}`
+        : `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now`
+  const open: OpenItem = {
+    kind,
+    stringId: s.id,
+    siteId: s.siteId,
+    clientId: s.clientId,
+    subject: `string:${s.id}`,
+    severity: 'standard',
+    summary,
+  }
+  return { archived: [], close, open }
+}
+
+/** The open or snoozed state, forecast (and with a visit, public-report) items of these strings. */
+export async function activeStringItems(db: Db, ids: number[], withReports: boolean): Promise<ActiveItem[]> {
+  const kinds: QueueKind[] = [
+    ...STATE_KINDS,
+    'forecast_dark',
+    ...(withReports ? ['public_report' as const] : []),
+  ]
+  const out: ActiveItem[] = []
+  for (let i = 0; i < ids.length; i += CHUNK)
+    out.push(
+      ...(await db('queueItems')
+        .whereIn('stringId', ids.slice(i, i + CHUNK))
+        .whereIn('kind', kinds)
+        .whereIn('state', ACTIVE)
+        .orderBy('id')
+        .select('id', 'stringId', 'kind')),
+    )
+  return out
+}
+
+/** Applies the plans: a few statements for all of them. */
+export async function applyStringPlans(db: Db, plans: StringPlan[], visitId: number | null, now: Date) {
+  const reason = 'String archived'
+  await closeItems(
+    db,
+    plans.flatMap((p) => p.archived),
+    { now, reason },
+  )
+  await closeItems(
+    db,
+    plans.flatMap((p) => p.close),
+    { now, visitId },
+  )
+  await openItems(
+    db,
+    plans.flatMap((p) => (p.open ? [p.open] : [])),
+    now,
+  )
+}
+
+/** Brings many strings' items in step with their states (no visit: public reports stay). */
+export async function syncStringItems(db: Db, ids: number[], now = new Date()) {
+  for (let i = 0; i < ids.length; i += CHUNK) {
+    const chunk = ids.slice(i, i + CHUNK)
+    const strings: QueuedString[] = await db('strings as s')
+      .join('sites as si', 'si.id', 's.siteId')
+      .whereIn('s.id', chunk)
+      .select('s.id', 's.assetTag', 's.name', 's.status', 's.lampsOut', 's.replaceRule', 's.riskNote')
+      .select('s.siteId', 's.archivedAt', 'si.clientId')
+    const active = new Map<number, ActiveItem[]>()
+    for (const a of await activeStringItems(db, chunk, false))
+      active.set(a.stringId, [...(active.get(a.stringId) ?? []), a])
+    const plans = strings.map((s) => planStringItems(s, active.get(s.id) ?? [], null))
+    await applyStringPlans(db, plans, null, now)
+  }
+}
+
+const kindOfStatus = `case s.status ${NEEDING.map((st) => `when '${st}' then '${stringStatusKind[st as keyof typeof stringStatusKind]}'`).join(' ')} end`
+
+/**
+ * Live strings whose state needs an item they lack, or that hold an item of another state kind or a
+ * forecast item that their state item replaces: the strings a refresh must bring in step.
+ */
+export async function stringsOutOfStep(db: Db): Promise<number[]> {
+  const lacking = await db('strings as s')
+    .whereIn('s.status', NEEDING)
+    .whereNull('s.archivedAt')
+    .whereNotExists((q) =>
+      q
+        .select(db.raw('1'))
+        .from('queue_items as q')
+        .whereRaw('q.string_id = s.id')
+        .whereIn('q.state', ACTIVE)
+        .whereRaw(`q.kind = ${kindOfStatus}`),
+    )
+    .pluck('s.id')
+  const crossed = await db('queueItems as q')
+    .join('strings as s', 's.id', 'q.stringId')
+    .whereIn('s.status', NEEDING)
+    .whereNull('s.archivedAt')
+    .whereIn('q.state', ACTIVE)
+    .whereIn('q.kind', [...STATE_KINDS, 'forecast_dark'])
+    .whereRaw(`q.kind <> ${kindOfStatus}`)
+    .distinct('s.id')
+    .pluck('s.id')
+  return [...new Set([...lacking, ...crossed] as number[])]
+}

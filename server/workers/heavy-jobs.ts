@@ -7,6 +7,8 @@ import { MAX_TOUR_COST, tourCost } from '../../shared/routing/limits'
 import type { ForecastRequest, ForecastResponse } from '../../shared/schemas/engine'
 import type { TourResult } from '../../shared/routing/solve'
 import type { PlanInput, PlanResult } from '../../shared/routing/plan'
+import type { VrptwResult } from '../../shared/routing/vrptw/index'
+import { vrptwCost } from '../../shared/routing/vrptw/limits'
 import { runInPool } from './pool'
 import { takeJobSlot } from './job-slots'
 import type { TaskName } from './tasks'
@@ -78,6 +80,23 @@ export function solveTourInPool(body: unknown, owner: JobOwner): Promise<TourRes
     )
   }
   return runJob('solve', body, timeLimitMs + TOUR_GRACE_MS, owner)
+}
+
+/** VRPTW search (POST /routing/solve-vrptw): the same stop-milliseconds cap as the tour search. */
+export function solveVrptwInPool(body: unknown, owner: JobOwner): Promise<VrptwResult> {
+  const { stops, timeLimitMs, cost } = vrptwCost((body ?? {}) as Record<string, unknown>)
+  if (cost > MAX_TOUR_COST) {
+    const shorter = Math.floor(MAX_TOUR_COST / stops)
+    throw new HttpError(
+      413,
+      'too_large',
+      `This search is ${fmt(stops)} stops × ${fmt(timeLimitMs)} ms = ${fmt(cost)} stop-milliseconds; ` +
+        `the limit is ${fmt(MAX_TOUR_COST)}. Set timeLimitMs to at most ${fmt(shorter)} for ${fmt(stops)} stops, ` +
+        'or split the stops into smaller requests.',
+      { limit: MAX_TOUR_COST, cost },
+    )
+  }
+  return runJob('solveVrptw', body, timeLimitMs + TOUR_GRACE_MS, owner)
 }
 
 /** Run planning has its own size limits (crews and items); here it only moves off the event loop. */

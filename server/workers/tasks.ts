@@ -10,6 +10,7 @@ import type { ForecastRequest } from '../../shared/schemas/engine'
 import { tourRequestSchema } from '../../shared/schemas/routing'
 import { solveTour } from '../../shared/routing/solve'
 import { planRuns, type PlanInput } from '../../shared/routing/plan'
+import { solveVrptwTask } from './vrptw-task'
 import { readRegisterFile, type ReadInput } from '../services/register/read-task'
 import { renderClientReportPdf, type PdfInput } from '../services/client-report-pdf-layout'
 
@@ -22,7 +23,8 @@ try {
   // not Linux: the threads keep the process's priority
 }
 
-export type TaskName = 'forecast' | 'forecastMany' | 'solve' | 'plan' | 'registerRead' | 'clientReportPdf'
+export type TaskName =
+  'forecast' | 'forecastMany' | 'solve' | 'solveVrptw' | 'plan' | 'registerRead' | 'clientReportPdf'
 
 export interface TaskError {
   status: number
@@ -54,6 +56,8 @@ const tasks: Record<TaskName, (input: unknown) => TaskReply | Promise<TaskReply>
     if (!parsed.success) return { err: validationFailed(parsed.error) }
     return { ok: solveTour(parsed.data) }
   },
+  // Checked here too: non-finite numbers, the schema, duplicate ids, stops nobody can reach (vrptw-task.ts).
+  solveVrptw: (input) => solveVrptwTask(input, validationFailed),
   plan: (input) => ({ ok: planRuns(input as PlanInput) }),
   // A register import's file: parsing and checking 50,000 rows is seconds of work.
   registerRead: (input) => readRegisterFile(input as ReadInput),

@@ -4,6 +4,9 @@ import vue from '@vitejs/plugin-vue'
 import { quasar, transformAssetUrls } from '@quasar/vite-plugin'
 import { fileURLToPath } from 'node:url'
 import { VitePWA } from 'vite-plugin-pwa'
+import { splitIcons } from './scripts/vite/split-icons'
+import { precompress } from './scripts/vite/precompress'
+import { preloadFonts } from './scripts/vite/preload-fonts'
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '3000'}`
 
@@ -25,6 +28,7 @@ export default defineConfig({
   plugins: [
     vue({ template: { transformAssetUrls } }),
     quasar({ sassVariables: fileURLToPath(new URL('./src/css/quasar-variables.sass', import.meta.url)) }),
+    splitIcons(fileURLToPath(new URL('./src/icons.ts', import.meta.url))),
     // ---- PWA (crew-b): offline app shell + last answers for the run and its strings ----------------
     VitePWA({
       strategies: 'generateSW',
@@ -85,7 +89,9 @@ export default defineConfig({
           },
           {
             // Lets the app start offline as the person last signed in; cleared on sign-out.
-            urlPattern: ({ url, sameOrigin }) => sameOrigin && url.pathname === '/api/v1/auth/me',
+            // src/stores/auth.ts asks /auth/session at start (/auth/me kept for older clients).
+            urlPattern: ({ url, sameOrigin }) =>
+              sameOrigin && /^\/api\/v1\/auth\/(session|me)$/.test(url.pathname),
             handler: 'NetworkFirst',
             method: 'GET',
             options: {
@@ -98,6 +104,9 @@ export default defineConfig({
       },
     }),
     // ---- end PWA ------------------------------------------------------------------------------------
+    // The sign-in page's weights: 400 text, 500 buttons, 600 its heading, 700 the app's name.
+    preloadFonts([400, 500, 600, 700]),
+    precompress(),
   ],
   server: { port: 5173, proxy: { '/api': api, '/uploads': apiTarget } },
   build: { outDir: 'dist', chunkSizeWarningLimit: 900 },

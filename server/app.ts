@@ -14,7 +14,7 @@ import { mountRoutes } from './route-table'
 import { allRoutes } from './routes/index'
 import { API_PREFIX, buildOpenApi } from './openapi'
 import { tileOrigin } from './services/tiles'
-import { serveClient } from './static'
+import { serveAssets, serveClient } from './static'
 import { serveBasemapFile } from './basemap-file'
 import { logger } from './logger'
 
@@ -26,6 +26,10 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
   app.set('trust proxy', deps.config.TRUST_PROXY)
   app.disable('x-powered-by')
   const tiles = tileOrigin(deps.config)
+  const clientDir = opts.clientDir ?? join(process.cwd(), 'dist')
+  const hasClient = existsSync(join(clientDir, 'index.html'))
+  // Hashed scripts and styles first, without the page-only headers below (server/static.ts).
+  if (hasClient) serveAssets(app, clientDir)
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -74,8 +78,7 @@ export function createApp(deps: AppDeps, opts: { clientDir?: string } = {}) {
   app.use('/api', apiNotFound)
 
   serveBasemapFile(app, deps.config)
-  const clientDir = opts.clientDir ?? join(process.cwd(), 'dist')
-  if (existsSync(join(clientDir, 'index.html'))) serveClient(app, clientDir)
+  if (hasClient) serveClient(app, clientDir)
   app.use(errorHandler)
   return app
 }

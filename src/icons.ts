@@ -25,6 +25,7 @@ export {
   mdiMapMarkerPath as iconRun,
   mdiMapOutline as iconMap,
   mdiMenu as iconMenu,
+  mdiBellOutline as iconNotices,
   mdiMessageAlertOutline as iconReport,
   mdiTrayArrowUp as iconOutbox,
   mdiWeatherNight as iconNight,

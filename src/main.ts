@@ -1,11 +1,12 @@
-import { createApp } from 'vue'
+import { createApp, watch } from 'vue'
 import { createPinia } from 'pinia'
-import { Dark, Dialog, Loading, LocalStorage, Notify, Quasar } from 'quasar'
+import { Dark, LocalStorage, Quasar } from 'quasar'
 import iconSet from 'quasar/icon-set/svg-mdi-v7'
 // The default APP_LOCALE's pack (date pickers, table labels); dates themselves come from src/dates.ts.
 import lang from 'quasar/lang/en-GB.js'
 
-// Fonts ship with the app (Latin subset only, to keep the bundle small); no font CDN.
+// Fonts ship with the app (Latin subset only, to keep the bundle small); no font CDN. Each of the four
+// weights is used: 400 body, 500 buttons and subtitles, 600 headings, 700 strong words.
 import '@fontsource/roboto/latin-400.css'
 import '@fontsource/roboto/latin-500.css'
 import '@fontsource/roboto/latin-600.css'
@@ -17,30 +18,42 @@ import App from './App.vue'
 import { setUnauthenticatedHandler } from './api/http'
 import { router } from './router'
 import { useAuthStore } from './stores/auth'
-// ---- offline (crew-b): service worker + outbox sender ----
-import { startOffline } from './offline/start-offline'
+
+// zod's documented `jitless` switch, set where zod reads it so the entry need not import zod: its
+// test for `new Function` otherwise breaks the CSP (script-src 'self'), a console issue Lighthouse counts.
+const zodGlobal = globalThis as { __zod_globalConfig?: Record<string, unknown> }
+Object.assign((zodGlobal.__zod_globalConfig ??= {}), { jitless: true })
 
 const app = createApp(App)
 
+// Dialog and Notify are installed with the signed-in screens (src/signed-in.ts), not here: the public
+// pages' first download stays small (issue 14).
 app.use(Quasar, {
-  plugins: { Notify, Dialog, Dark, LocalStorage, Loading },
+  plugins: { Dark, LocalStorage },
   iconSet,
   lang,
   config: {
     notify: { position: 'top', timeout: 5000 },
-    loading: { delay: 300 },
   },
 })
 app.use(createPinia())
 app.use(router)
 
-// ---- offline (crew-b): register the service worker; send the outbox at start, on `online`, after saves ----
-startOffline()
+// ---- offline (crew-b): once someone is signed in, register the service worker and send the outbox at
+// start, on `online` and after saves (src/signed-in.ts → offline/start-offline.ts) ----
+const auth = useAuthStore()
+watch(
+  () => auth.user !== null,
+  (signedIn) => {
+    if (signedIn) void import('./signed-in').then((m) => m.startSignedIn(app))
+  },
+  { immediate: true },
+)
 
 // A session that expires while a page is open sends the user to sign in and back again afterwards.
 setUnauthenticatedHandler(() => {
   const current = router.currentRoute.value
-  useAuthStore().setUser(null)
+  auth.setUser(null)
   if (!current.meta.public) void router.replace({ name: 'sign-in', query: { next: current.fullPath } })
 })
 

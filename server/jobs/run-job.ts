@@ -6,9 +6,9 @@ import type { Config } from '../config'
 import { withNamedLock, type LockedRun } from './named-lock'
 import { refreshQueue } from './refresh-queue'
 import { sendWeeklyDigest } from './weekly-digest'
+import { sendCertificateReminders } from './certificate-reminders'
 
-// certificate-reminders joins this list when its job exists (issue 12 part 3).
-export const jobNames = ['weekly-digest', 'queue-refresh'] as const
+export const jobNames = ['weekly-digest', 'queue-refresh', 'certificate-reminders'] as const
 export type JobName = (typeof jobNames)[number]
 
 export interface JobDeps {
@@ -20,6 +20,7 @@ export interface JobDeps {
 const jobs: Record<JobName, (d: JobDeps, now: Date) => Promise<unknown>> = {
   'weekly-digest': (d, now) => sendWeeklyDigest(d.db, d.mailer, d.config, now),
   'queue-refresh': (d, now) => refreshQueue(d.db, now),
+  'certificate-reminders': (d, now) => sendCertificateReminders(d.db, d.mailer, d.config, now),
 }
 
 export const isJobName = (name: string): name is JobName => (jobNames as readonly string[]).includes(name)

@@ -1,5 +1,6 @@
 import type { Request, Response } from 'express'
 import jwt from 'jsonwebtoken'
+import { z } from 'zod'
 import {
   FORGOT_PASSWORD_MESSAGE,
   acceptInviteBody,
@@ -8,6 +9,7 @@ import {
   forgotPasswordResponse,
   meResponse,
   resetPasswordBody,
+  publicUser,
   sessionResponse,
   signInBody,
 } from '../../shared/schemas/auth'
@@ -89,6 +91,17 @@ export const authRoutes: RouteDef[] = [
     summary: 'The signed-in user',
     response: meResponse,
     handler: ({ user }) => ({ user }),
+  }),
+  // The client's start-up check (issue 14): "not signed in" is an answer, not an error, so the
+  // sign-in page loads without a 401 in the console. /auth/me keeps its 401 for API callers.
+  defineRoute({
+    method: 'get',
+    path: '/auth/session',
+    access: 'public',
+    tag: 'auth',
+    summary: 'The signed-in user, or null when there is no valid session (never 401)',
+    response: z.object({ user: publicUser.nullable() }),
+    handler: ({ req }) => ({ user: req.user ?? null }),
   }),
   defineRoute({
     method: 'post',

@@ -10,17 +10,20 @@ import { photoRoutes } from './photos'
 import { engineRoutes } from './engine'
 import { queueRoutes } from './queue'
 import { routingRoutes } from './routing'
+import { routingVrptwRoutes } from './routing-vrptw'
 import { runRoutes } from './runs'
 import { isolationRoutes } from './isolations'
 import { overdueRoutes } from './overdue'
 import { certificateRoutes } from './certificates'
 import { reportRoutes } from './reports'
+import { emergencyLogRoutes } from './emergency-logs'
 import { managerRoutes } from './manager'
 import { energyRoutes } from './energy'
 import { registerRoutes } from './register'
 import { settingsRoutes } from './settings'
 import { adminJobRoutes } from './admin-jobs'
 import { auditRoutes } from './audit'
+import { noticeRoutes } from './notices'
 import { withEstate } from './estate'
 
 // The estate's routes (estate.ts) join the table; paths already here keep their answers.
@@ -35,15 +38,18 @@ export const allRoutes: RouteDef[] = withEstate([
   ...engineRoutes,
   ...queueRoutes,
   ...routingRoutes,
+  ...routingVrptwRoutes,
   ...runRoutes,
   ...isolationRoutes,
   ...overdueRoutes,
   ...certificateRoutes,
   ...reportRoutes,
+  ...emergencyLogRoutes,
   ...managerRoutes,
   ...energyRoutes,
   ...registerRoutes,
   ...settingsRoutes,
   ...adminJobRoutes,
   ...auditRoutes,
+  ...noticeRoutes,
 ])

@@ -8,6 +8,7 @@ import {
   type IsolationQuery,
 } from '../../shared/schemas/isolations'
 import { isolationFindings } from './isolation-findings'
+import { noticeIsolationRejected } from './notice-producers'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { addDays, localInstant } from '../../shared/local-time'
 import { config } from '../config'
@@ -186,7 +187,9 @@ export async function reviewIsolation(
   decision: 'approved' | 'rejected',
   note?: string,
 ) {
-  const head = await db('isolations').where({ id }).first('id', 'state', 'lockId', 'testerId')
+  const head = await db('isolations')
+    .where({ id })
+    .first('id', 'state', 'lockId', 'testerId', 'userId', 'stringId', 'review')
   if (!head) throw notFound('Isolation')
   if (decision === 'approved' && (note ?? '').length < REVIEW_NOTE_MIN) {
     const steps = await db('isolationSteps').where({ isolationId: id }).select('step', 'doneAt', 'value')
@@ -207,4 +210,5 @@ export async function reviewIsolation(
     .where({ id })
     .update({ review: decision, reviewNote: note ?? null, reviewedBy: reviewerId, reviewedAt: new Date() })
   if (!n) throw notFound('Isolation')
+  if (decision === 'rejected' && head.review !== 'rejected') await noticeIsolationRejected(db, head, note)
 }

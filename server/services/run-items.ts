@@ -3,6 +3,7 @@ import type { Db } from '../db'
 import type { PlanCrew, PlanItem } from '../../shared/routing/plan-types'
 import { listQueue } from './queue/list'
 import { badRequest } from '../errors'
+import { rankPriority } from '../../shared/schemas/report-work'
 
 /** Minutes on site per kind of work (common practice, no source; set to our crews' own timings). */
 export const SERVICE_MINUTES: Record<string, number> = {
@@ -27,6 +28,7 @@ export interface ItemInfo {
   window: { from: string; to: string } | null
   needsPlatform: boolean
   priority: number
+  emergency: boolean
 }
 
 export async function loadItems(db: Db, ids: number[]): Promise<Map<number, ItemInfo>> {
@@ -62,7 +64,9 @@ export async function loadItems(db: Db, ids: number[]): Promise<Map<number, Item
           p.site?.accessFrom && p.site?.accessTo ? { from: p.site.accessFrom, to: p.site.accessTo } : null,
         // Catenaries and festoons hang over the carriageway (≥ 5.2 m): work from a platform.
         needsPlatform: p.string ? geometry.get(p.string.id) === 'line' : false,
-        priority: p.score,
+        // Emergencies before every routine item in the planner's order (report-work.ts).
+        priority: rankPriority(p),
+        emergency: p.severity === 'emergency',
       },
     ]),
   )

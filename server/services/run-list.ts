@@ -2,6 +2,7 @@ import type { Db } from '../db'
 import type { CrewRun } from '../../shared/schemas/runs'
 import { loadCrews } from './run-items'
 import { isoOrNull } from '../../shared/iso-time'
+import { reportNotesForItems } from './report-notes'
 
 /** Saved runs for a date (optionally one crew's), with each stop's string and site. */
 export async function listRuns(db: Db, date: string, crewId?: number): Promise<CrewRun[]> {
@@ -26,6 +27,7 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
       'rs.*',
       'q.kind',
       'q.summary',
+      'q.severity',
       's.assetTag',
       's.lat',
       's.lng',
@@ -34,6 +36,11 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
       'si.accessTo',
       'q.siteId',
     )
+  // The reporters' own words on each stop's public-report item (nothing personal).
+  const notes = await reportNotesForItems(
+    db,
+    stops.filter((s) => s.kind === 'public_report').map((s) => s.queueItemId as number),
+  )
   const sites = new Map(
     (await db('sites').select('id', 'name', 'lat', 'lng')).map((s) => [s.id as number, s]),
   )
@@ -72,6 +79,8 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
             pinned: !!s.pinned,
             window: s.accessFrom && s.accessTo ? { from: s.accessFrom, to: s.accessTo } : null,
             doneAt: isoOrNull(s.doneAt),
+            emergency: s.severity === 'emergency',
+            reports: (s.queueItemId && notes.get(s.queueItemId)) || [],
           }
         }),
       returnAt: r.returnAt ?? crew.shiftStart,

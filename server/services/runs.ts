@@ -10,6 +10,8 @@ import { runMail } from '../mail/run-mail'
 import { travelMatrix } from './travel-matrix'
 import { listRuns } from './run-list'
 import { markReportsScheduled } from './queue/report-states'
+import { applyRefusals } from './plan-refusal'
+import { noticeRunPublished, runStopItems } from './notice-producers'
 
 function view(
   date: string,
@@ -49,6 +51,7 @@ function view(
         pinned: pinned.has(it.itemId),
         window: it.window,
         doneAt: null,
+        emergency: it.emergency,
       }
     }),
     returnAt: planned?.returnAt ?? crew.shiftStart,
@@ -64,8 +67,14 @@ export async function proposePlan(
   config: Pick<Config, 'ROUTING_URL'> = {},
   owner?: JobOwner,
 ): Promise<PlanResultView> {
-  const crews = await loadCrews(db, body.crewIds)
-  const items = await loadItems(db, body.itemIds)
+  const loaded = await loadCrews(db, body.crewIds)
+  // Out-of-date platforms and unapproved columns are refused before the solver (plan-refusal.ts).
+  const { crews, items, refused, platformNotes } = await applyRefusals(
+    db,
+    loaded,
+    await loadItems(db, body.itemIds),
+    body.date,
+  )
   // The planner's travel matrix runs over depots first, then items, in this order.
   const travel = await travelMatrix(config, [
     ...crews.map((c) => ({ lat: c.depotLat, lng: c.depotLng })),
@@ -100,12 +109,18 @@ export async function proposePlan(
         pinned,
       ),
     ),
-    unassigned: result.unassigned.map((u) => ({
-      itemId: Number(u.itemId),
-      summary: items.get(Number(u.itemId))!.summary,
-      reason: u.reason,
-      message: u.message,
-    })),
+    unassigned: [
+      ...refused,
+      ...result.unassigned.map((u) => ({
+        itemId: Number(u.itemId),
+        summary: items.get(Number(u.itemId))!.summary,
+        reason: u.reason,
+        message:
+          u.reason === 'needs_platform' && platformNotes.length
+            ? `${u.message} ${platformNotes.join(' ')}`
+            : u.message,
+      })),
+    ],
   }
 }
 
@@ -144,6 +159,7 @@ export async function publishRuns(
       const prev = await trx('runs')
         .where({ crewId: run.crewId, runDate: body.date })
         .first('id', 'version', 'state')
+      const before = prev ? await runStopItems(trx, prev.id) : []
       const row = {
         state: 'published',
         publishedAt: now,
@@ -179,6 +195,14 @@ export async function publishRuns(
         )
       }
       notices.push({ crewId: run.crewId, changed: prev?.state === 'published' })
+      await noticeRunPublished(trx, {
+        crewId: run.crewId,
+        date: body.date,
+        wasPublished: prev?.state === 'published',
+        before,
+        after: run.stops.map((s) => Number(s.itemId)),
+        publishedBy: userId,
+      })
       runIds.push(runId)
     }
     // The public reports these runs will see to read "scheduled" from this commit.

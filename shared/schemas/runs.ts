@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { hhmm } from './common'
 import { queueKinds } from './queue'
+import { reportNote } from './report-work'
 
 export const planBody = z.object({
   date: z.iso.date(),
@@ -38,6 +39,10 @@ export const runStop = z.object({
   pinned: z.boolean(),
   window: z.object({ from: z.string(), to: z.string() }).nullable(),
   doneAt: z.string().nullable(),
+  /** A hazard report's item: attended before anything else, logged from the stop. */
+  emergency: z.boolean().optional(),
+  /** Public reports still waiting on the stop's item: the reporters' words, place and photo. */
+  reports: z.array(reportNote).optional(),
 })
 export type RunStop = z.infer<typeof runStop>
 

@@ -11,6 +11,8 @@ export type SessionResponse = z.infer<typeof sessionResponse>
 
 export const authApi = {
   me: () => http.get<{ user: SessionUser }>('/auth/me'),
+  /** The start-up check: `user: null` when not signed in (200, never 401, so no console error). */
+  session: () => http.get<{ user: SessionUser | null }>('/auth/session'),
   signIn: (email: string, password: string) =>
     http.post<SessionResponse>('/auth/sign-in', { email, password }),
   signOut: () => http.post<void>('/auth/sign-out'),

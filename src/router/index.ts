@@ -8,6 +8,7 @@ import { useAppConfigStore } from '../stores/app-config'
 import { useAuthStore } from '../stores/auth'
 import { homePath, safeNext } from './nav'
 import { routes } from './routes'
+import { preloadNamed, preloadViews } from './preload'
 
 export const router = createRouter({
   history: createWebHistory(import.meta.env.BASE_URL),
@@ -23,6 +24,11 @@ export const router = createRouter({
 export async function guard(to: RouteLocationNormalized): Promise<true | RouteLocationRaw> {
   const auth = useAuthStore()
   const appConfig = useAppConfigStore()
+  // The page's code downloads beside the session and config answers, not after them (issue 14). At `/`
+  // before the first answer, the likeliest next screen is the sign-in page.
+  if (to.meta.public) preloadViews(to)
+  else if (to.name === 'home' && !auth.loaded) preloadNamed(routes, 'sign-in')
+  else void auth.ensureLoaded().then(() => auth.user && preloadViews(to))
   await Promise.all([auth.ensureLoaded(), appConfig.ensureLoaded()])
   const user = auth.user
 

@@ -4,7 +4,8 @@ import { authApi, type SessionUser } from '../api/auth'
 import { isApiError } from '../api/http'
 
 // The session lives in an httpOnly cookie the client cannot read, so "who am I" always comes
-// from GET /auth/me. `ensureLoaded` runs that once per page load and every guard awaits it.
+// from GET /auth/session (`user: null` when signed out, never a 401 in the console). `ensureLoaded`
+// runs that once per page load and every guard awaits it.
 export const useAuthStore = defineStore('auth', () => {
   const user = ref<SessionUser | null>(null)
   const loaded = ref(false)
@@ -17,10 +18,11 @@ export const useAuthStore = defineStore('auth', () => {
 
   async function fetchMe(): Promise<void> {
     try {
-      user.value = (await authApi.me()).user
+      user.value = (await authApi.session()).user
       loadError.value = null
     } catch (err) {
       user.value = null
+      // A server older than /auth/session may still answer 401 for "not signed in".
       loadError.value = isApiError(err) && err.status === 401 ? null : String((err as Error).message)
     } finally {
       loaded.value = true

@@ -47,7 +47,7 @@ describe('Register area', () => {
     await expect.poll(() => page.getByText('Use an IANA time-zone name').count()).toBeGreaterThan(0)
     await field(page, 'field-timeZone').fill('Europe/London')
     await page.getByRole('button', { name: 'Create client' }).click()
-    await page.getByRole('cell', { name: client }).waitFor()
+    await page.getByRole('cell', { name: client, exact: true }).waitFor()
     const stored = await app.db('clients').where({ name: client }).first('id', 'timeZone')
     expect(stored.timeZone).toBe('Europe/London')
 

@@ -40,7 +40,12 @@ describe('supervisor plans and publishes runs', () => {
     // Ranked by score, highest first, and each score shown with its three parts as numbers.
     const totals = (await page.locator('.score-bar__total').allTextContents()).map(Number)
     expect(totals.length).toBeGreaterThanOrEqual(PICK)
-    for (let i = 1; i < totals.length; i++) expect(totals[i - 1]).toBeGreaterThanOrEqual(totals[i])
+    // Emergencies come first (a hazard outranks every routine item), then the score decides.
+    const severities = await page.locator('.queue-item').evaluateAll((els) =>
+      els.map((el) => el.getAttribute('data-severity')),
+    )
+    const rank = (i: number) => (severities[i] === 'emergency' ? 1000 : 0) + totals[i]
+    for (let i = 1; i < totals.length; i++) expect(rank(i - 1)).toBeGreaterThanOrEqual(rank(i))
     const legend = await page.locator('.score-bar__legend').first().textContent()
     expect(legend).toMatch(/Risk\s*[\d.]+/)
     expect(legend).toMatch(/Importance\s*[\d.]+/)

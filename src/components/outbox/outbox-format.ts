@@ -1,5 +1,6 @@
 // Words for outbox entries: what each is, and where it stands.
 import { isolationSteps } from '../../../shared/schemas/visits'
+import { emergencyOutcomeLabel } from '../../../shared/schemas/report-work'
 import type { OutboxEntry } from '../../offline/outbox-types'
 import { formatDate, isToday } from '../../dates'
 
@@ -7,6 +8,7 @@ export const KIND_WORD: Record<OutboxEntry['kind'], string> = {
   isolation: 'Isolation',
   visit: 'Visit',
   photo: 'Photo',
+  emergency: 'Emergency log',
 }
 
 function plural(n: number, one: string, many = `${one}s`): string {
@@ -16,6 +18,7 @@ function plural(n: number, one: string, many = `${one}s`): string {
 export function entrySummary(e: OutboxEntry): string {
   if (e.kind === 'photo') return e.fileName
   if (e.kind === 'isolation') return `${e.body.steps.length} of ${isolationSteps.length} steps stamped`
+  if (e.kind === 'emergency') return emergencyOutcomeLabel[e.body.outcome]
   const b = e.body
   const parts = [`${b.failedFound} found`, `${b.replaced} replaced`]
   if (b.fuseReplaced) parts.push('fuse lamp replaced')

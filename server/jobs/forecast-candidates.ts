@@ -66,7 +66,7 @@ export async function forecastCandidates(
   // A forecast stamped after `now` was made for another clock (a test, a catch-up): made again. DATETIME
   // keeps whole seconds, so a second's grace.
   const ahead = new Date(now.getTime() + 1000)
-  const page = (after: number) => {
+  const page = (after: number, size: number) => {
     const q = db('strings as s')
       .join('sites as si', 'si.id', 's.siteId')
       .join('clients as c', 'c.id', 'si.clientId')
@@ -101,7 +101,7 @@ export async function forecastCandidates(
           .orWhere('s.replaceRule', 'risk')
           .orWhereIn('s.id', [...patrols.keys()]),
       )
-    return q.where('s.id', '>', after).where('s.id', '<=', after + PAGE) as Promise<CandidateRow[]>
+    return q.where('s.id', '>', after).where('s.id', '<=', after + size) as Promise<CandidateRow[]>
   }
   // Working out a zone's today is slow (tens of microseconds): once per zone, not per string.
   const todays = new Map<string, string>()
@@ -109,8 +109,10 @@ export async function forecastCandidates(
   const out: Candidate[] = []
   // A page at a time: a town's rows read and worked through in one go would hold the event loop.
   // Pages are ranges of ids (read in key order, no sort), so a gap in the ids costs an empty page.
+  // A refresh that is not full reads few rows (those out of step and those watched): one statement.
   const top = Number((await db('strings').max({ top: 'id' }).first())?.top ?? 0)
-  for (let after = 0; after < top; after += PAGE) out.push(...(await page(after)).map(candidate))
+  const step = full ? PAGE : Math.max(top, 1)
+  for (let after = 0; after < top; after += step) out.push(...(await page(after, step)).map(candidate))
   return out
 
   function candidate(r: CandidateRow): Candidate {

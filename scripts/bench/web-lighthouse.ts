@@ -67,6 +67,27 @@ function scriptKb(lhr: Lhr): number {
   return (script?.transferSize ?? 0) / 1000
 }
 
+/** Trace-recording failures (NO_NAVSTART, NO_FCP…) are Lighthouse's own flakes on a busy machine:
+ * a page gets up to three tries before its error counts. */
+const TRIES = 3
+
+async function lighthouseRun(browser: Browser, url: string, cookie: string | null): Promise<Lhr> {
+  for (let attempt = 1; ; attempt++) {
+    const result = await lighthouse(url, {
+      port: browser.port,
+      output: 'json',
+      logLevel: 'error',
+      onlyCategories: ['performance', 'accessibility', 'best-practices'],
+      ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}),
+    })
+    if (!result) throw new Error(`Lighthouse returned nothing for ${url}`)
+    const { lhr } = result
+    if (!lhr.runtimeError) return lhr
+    if (attempt >= TRIES) throw new Error(`Lighthouse on ${url}: ${lhr.runtimeError.message}`)
+    console.warn(`Lighthouse on ${url}: ${lhr.runtimeError.code}, trying again`)
+  }
+}
+
 /** Runs Lighthouse once on `url`, the session cookie (if any) sent with every request of the page. */
 export async function audit(
   browser: Browser,
@@ -75,16 +96,7 @@ export async function audit(
   cookie: string | null,
   reportDir: string,
 ): Promise<PageFigures> {
-  const result = await lighthouse(url, {
-    port: browser.port,
-    output: 'json',
-    logLevel: 'error',
-    onlyCategories: ['performance', 'accessibility', 'best-practices'],
-    ...(cookie ? { extraHeaders: { Cookie: cookie } } : {}),
-  })
-  if (!result) throw new Error(`Lighthouse returned nothing for ${url}`)
-  const { lhr } = result
-  if (lhr.runtimeError) throw new Error(`Lighthouse on ${url}: ${lhr.runtimeError.message}`)
+  const lhr = await lighthouseRun(browser, url, cookie)
   mkdirSync(reportDir, { recursive: true })
   writeFileSync(join(reportDir, `${name.replace(/\W+/g, '-')}.json`), JSON.stringify(lhr))
   const n = (id: string) => lhr.audits[id].numericValue ?? NaN

@@ -6,6 +6,7 @@
 // last two signed in through the session cookie. Each page runs RUNS times (default 3) and the run
 // with the median performance score is kept. Exits 1 when any page misses a target.
 // SKIP_BUILD=1 reuses the last build in BENCH_WEB_DIR.
+import './quiet-log'
 import { execFileSync } from 'node:child_process'
 import { loadavg } from 'node:os'
 import { join, resolve } from 'node:path'
@@ -51,8 +52,6 @@ function misses(p: PageFigures, spec: PageSpec): string[] {
 }
 
 async function startServer(dbUrl: string, clientDir: string): Promise<{ base: string; close(): void }> {
-  // The server's modules read LOG_LEVEL when first imported: quiet, so the table stays readable.
-  process.env.LOG_LEVEL = process.env.BENCH_LOG_LEVEL ?? 'silent'
   const { createDb } = await import('../../server/db')
   const { createApp } = await import('../../server/app')
   const { loadConfig } = await import('../../server/config')

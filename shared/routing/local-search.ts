@@ -12,8 +12,10 @@ const MAX_SEGMENT = 3
  * 2-opt plus Or-opt (segments of 1–3 stops moved elsewhere, either way round) over neighbour
  * lists, with a work queue standing in for don't-look bits (J. L. Bentley, "Fast Algorithms for
  * Geometric Traveling Salesman Problems", ORSA J. Computing 4(4), 1992): only stops next to a
- * changed edge are looked at again. Costs are directed; for asymmetric matrices a reversed path is
- * charged its reversed cost and the tour array never flips its reading direction.
+ * changed edge are looked at again. For symmetric costs a sequential 3-opt scan competes with
+ * them, and when none of the three finds a move a Lin–Kernighan chain is tried. Costs are
+ * directed; for asymmetric matrices a reversed path is charged its reversed cost and the tour
+ * array never flips its reading direction.
  */
 export class LocalSearch {
   private readonly queue: Int32Array
@@ -32,13 +34,12 @@ export class LocalSearch {
     private readonly model: CostModel,
     private readonly neighbours: Int32Array,
     private readonly k: number,
-    useLk = false,
   ) {
     this.queue = new Int32Array(tour.n)
     this.queued = new Uint8Array(tour.n)
     this.paths = model.symmetric ? null : new PathCosts(tour, model)
     this.threeOpt = model.symmetric ? new ThreeOptScan(tour, model, neighbours, k) : null
-    this.lk = model.symmetric && useLk ? new LinKernighanStep(tour, model, neighbours, k) : null
+    this.lk = model.symmetric ? new LinKernighanStep(tour, model, neighbours, k) : null
   }
 
   push(city: number): void {

@@ -30,8 +30,13 @@ export function nearestNeighbours(model: CostModel, k: number): Int32Array {
   return lists
 }
 
-/** Direction from stop i to stop j in the plane, for sorting neighbours into quadrants. */
-export type Offset = (i: number, j: number) => [dx: number, dy: number]
+/**
+ * Candidate lists for the tour search: quadrant neighbours when the model knows directions
+ * (coordinates), else the k nearest (a travel matrix).
+ */
+export function candidateNeighbours(model: CostModel, k: number): Int32Array {
+  return model.quadrant ? quadrantNeighbours(model, k, model.quadrant) : nearestNeighbours(model, k)
+}
 
 /**
  * Quadrant neighbours: up to ⌊k/4⌋ nearest stops in each quadrant around a stop, the rest of its k
@@ -40,7 +45,11 @@ export type Offset = (i: number, j: number) => [dx: number, dy: number]
  * tour needs is never a candidate; quadrant lists keep one (Johnson and McGeoch 1997, §3.3; their
  * default for 3-opt and Lin–Kernighan).
  */
-export function quadrantNeighbours(model: CostModel, k: number, offset: Offset): Int32Array {
+export function quadrantNeighbours(
+  model: CostModel,
+  k: number,
+  quadrant: (i: number, j: number) => number,
+): Int32Array {
   const { n, near } = model
   const perQuadrant = Math.floor(k / 4)
   const lists = new Int32Array(n * k)
@@ -52,15 +61,21 @@ export function quadrantNeighbours(model: CostModel, k: number, offset: Offset):
   for (let i = 0; i < n; i++) {
     quadSize.fill(0)
     let size = 0
+    // A stop no nearer than every list's last entry changes nothing: skip it before its quadrant.
+    let quadWorst = perQuadrant > 0 ? Infinity : -Infinity
     for (let j = 0; j < n; j++) {
       if (j === i) continue
       const key = near(i, j)
-      const [dx, dy] = offset(i, j)
-      const q = dx >= 0 && dy > 0 ? 0 : dx < 0 && dy >= 0 ? 1 : dx <= 0 && dy < 0 ? 2 : dx > 0 ? 3 : 0
-      if (perQuadrant > 0) {
-        quadSize[q] = insertSorted(quadKeys, quadIds, q * perQuadrant, quadSize[q], perQuadrant, key, j)
-      }
+      if (key >= quadWorst && size === k && key >= keys[k - 1]) continue
       size = insertSorted(keys, ids, 0, size, k, key, j)
+      if (perQuadrant === 0 || key >= quadWorst) continue
+      const q = quadrant(i, j)
+      quadSize[q] = insertSorted(quadKeys, quadIds, q * perQuadrant, quadSize[q], perQuadrant, key, j)
+      quadWorst = -Infinity
+      for (let r = 0; r < 4; r++) {
+        const last = quadSize[r] < perQuadrant ? Infinity : quadKeys[r * perQuadrant + perQuadrant - 1]
+        if (last > quadWorst) quadWorst = last
+      }
     }
     // The quadrant picks first, then the nearest others, without repeats; then nearest first.
     const chosen: number[] = []

@@ -11,7 +11,7 @@ import { EXACT_MAX_STOPS, exactTour } from './exact'
 import { haversineMetres } from './geo'
 import { iteratedLocalSearch } from './ils'
 import { DEFAULT_TIME_LIMIT_MS, MAX_STOPS_WITH_COORDINATES, MAX_STOPS_WITH_MATRIX } from './limits'
-import { nearestNeighbours } from './neighbours'
+import { candidateNeighbours } from './neighbours'
 import { createRandom } from './prng'
 import { greedyEdgeTour } from './tour-greedy'
 
@@ -50,9 +50,10 @@ export interface SolveOptions {
 }
 
 /**
- * Shortest closed tour through every stop (travelling-salesman heuristic): nearest-neighbour start,
- * then 2-opt + Or-opt with neighbour lists, then iterated local search until the time limit or
- * until kicks stop paying. Deterministic while the search ends on its stall rule rather than on
+ * Shortest closed tour through every stop (travelling-salesman heuristic): greedy-edge start
+ * (nearest neighbour for asymmetric costs), then 2-opt, Or-opt, 3-opt and Lin–Kernighan moves over
+ * quadrant neighbour lists, then iterated local search with local double-bridge kicks until the
+ * time limit or until kicks stop paying. Deterministic while the search ends on its stall rule rather than on
  * the clock. Throws RangeError for requests `tourRequestSchema` would reject or that exceed the limits.
  */
 export function solveTour(request: TourRequest, options: SolveOptions = {}): TourResult {
@@ -70,7 +71,7 @@ export function solveTour(request: TourRequest, options: SolveOptions = {}): Tou
     order = exactTour(search, startIndex)
   } else {
     const k = Math.min(10, n - 1)
-    const neighbours = nearestNeighbours(search, k)
+    const neighbours = candidateNeighbours(search, k)
     const initial = search.symmetric
       ? greedyEdgeTour(search, neighbours, k)
       : nearestNeighbourTour(search, neighbours, k, startIndex)
@@ -79,7 +80,7 @@ export function solveTour(request: TourRequest, options: SolveOptions = {}): Tou
       k,
       random: createRandom(options.seed ?? 0x1a4d),
       deadline: started + (request.timeLimitMs ?? DEFAULT_TIME_LIMIT_MS),
-      stallKicks: options.stallKicks ?? Math.max(2000, 40 * n),
+      stallKicks: options.stallKicks ?? Math.max(1000, 20 * n),
       maxKickSegment: 50,
     })
   }

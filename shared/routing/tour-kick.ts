@@ -38,32 +38,3 @@ export function doubleBridge(
   touched.set([a, b1, b2, c1, c2, d1, d2, e])
   return delta
 }
-
-/**
- * Picks the four joins of a double bridge near each other in the plane rather than along the
- * tour: from a random stop, short random walks over the neighbour lists (the "random-walk kick"
- * of D. Applegate, W. Cook and A. Rohe, "Chained Lin-Kernighan for Large Traveling Salesman
- * Problems", INFORMS J. Computing 15(1), 2003, their best kick). Returns the position before the
- * first run and the three run lengths, or null when the walk found fewer than four usable stops.
- */
-export function walkKickRuns(
-  tour: ArrayTour,
-  neighbours: Int32Array,
-  k: number,
-  random: () => number,
-  steps: number,
-): { at: number; lengths: [number, number, number] } | null {
-  const { n, pos } = tour
-  const picked = [Math.floor(random() * n)]
-  for (let tries = 0; picked.length < 4 && tries < 12; tries++) {
-    let city = picked[picked.length - 1]
-    for (let s = 1 + Math.floor(random() * steps); s > 0; s--)
-      city = neighbours[city * k + Math.floor(random() * k)]
-    if (!picked.includes(city)) picked.push(city)
-  }
-  if (picked.length < 4) return null
-  const p = picked.map((c) => pos[c]).sort((x, y) => x - y)
-  // The rest of the tour (A) must keep at least the stop at p[0].
-  if (p[0] === 0 && p[3] === n - 1) return null
-  return { at: p[0], lengths: [p[1] - p[0], p[2] - p[1], p[3] - p[2]] }
-}

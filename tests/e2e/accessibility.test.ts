@@ -38,7 +38,7 @@ async function openContext(theme: Theme, role: Role | null): Promise<BrowserCont
   const context = await browser.newContext({ viewport: { width: 390, height: 844 } })
   // The theme the app remembers (src/composables/use-theme.ts keeps the choice under lw.theme).
   // (Quasar's LocalStorage writes a string as `__q_strn|value`.)
-  await context.addInitScript((t) => localStorage.setItem('lw.theme', `__q_strn|${t}`), theme)
+  await context.addInitScript(`localStorage.setItem('lw.theme', '__q_strn|${theme}')`)
   if (role) {
     const res = await context.request.post(`${app.baseUrl}/api/v1/auth/sign-in`, {
       data: { email: `${role}@example.org`, password: 'lampwright' },

@@ -4,10 +4,14 @@ import { spawnSync } from 'node:child_process'
 const benches = [
   'scripts/bench/forecast.ts',
   'scripts/bench/routing.ts',
+  'scripts/bench/vrptw.ts',
   'scripts/bench/bbox.ts',
   'scripts/bench/register.ts',
   'scripts/bench/import.ts',
   'scripts/bench/event-loop.ts',
+  'scripts/bench/queue-refresh.ts',
+  'scripts/bench/api.ts',
+  'scripts/bench/web.ts',
 ]
 let failed = false
 for (const b of benches) {

@@ -53,7 +53,13 @@ export async function up(knex: Knex): Promise<void> {
   const crews = await knex('crews').select('id', 'name')
   if (crews.length)
     await knex('stock_locations').insert(
-      crews.map((c) => ({ kind: 'van', name: `${c.name} van`, crew_id: c.id, created_at: now, updated_at: now })),
+      crews.map((c) => ({
+        kind: 'van',
+        name: `${c.name} van`,
+        crew_id: c.id,
+        created_at: now,
+        updated_at: now,
+      })),
     )
   // Short aliases: the app's Knex settings turn snake_case keys into camelCase on the way out.
   const classes = await knex('lamp_classes').select('label', 'rated_volts as v', 'rated_amps as a', 'shunted')

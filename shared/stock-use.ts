@@ -32,9 +32,7 @@ export function lampsByClass(
 ): { classIndex: number; quantity: number }[] {
   const chains = Math.max(1, type.branches ?? 1)
   const anyShunted = type.classes.some((k) => k.shunted)
-  const lampClasses = type.classes
-    .map((k, i) => ({ k, i }))
-    .filter(({ k }) => k.shunted || !anyShunted)
+  const lampClasses = type.classes.map((k, i) => ({ k, i })).filter(({ k }) => k.shunted || !anyShunted)
   const out = new Map<number, number>()
   let left = use.lamps
   lampClasses.forEach(({ k, i }, n) => {
@@ -76,7 +74,13 @@ export function needLines(
   return [...need]
     .map(([itemId, n]) => {
       const h = have.get(itemId) ?? 0
-      return { itemId, itemName: n.itemName, need: n.quantity, have: h, short: Math.max(0, n.quantity - Math.max(0, h)) }
+      return {
+        itemId,
+        itemName: n.itemName,
+        need: n.quantity,
+        have: h,
+        short: Math.max(0, n.quantity - Math.max(0, h)),
+      }
     })
     .sort((a, b) => b.short - a.short || a.itemName.localeCompare(b.itemName))
 }

@@ -28,7 +28,12 @@ export async function seedStock(db: Db) {
       levels.push({ locationId: p.id, itemId, quantity, lowAt: depot ? 100 : 5 })
     }
     for (const itemId of spares)
-      levels.push({ locationId: p.id, itemId, quantity: depot ? DEPOT_SPARES : VAN_SPARES, lowAt: depot ? 20 : 2 })
+      levels.push({
+        locationId: p.id,
+        itemId,
+        quantity: depot ? DEPOT_SPARES : VAN_SPARES,
+        lowAt: depot ? 20 : 2,
+      })
   }
   await db('stockLevels').insert(levels)
   await seedFitted(db, types)
@@ -40,8 +45,20 @@ async function seedFitted(db: Db, types: Map<number, Awaited<ReturnType<typeof l
     .join('strings as s', 's.id', 'v.stringId')
     .join('sites as si', 'si.id', 's.siteId')
     .where((w) => w.where('v.replaced', '>', 0).orWhere('v.fuseReplaced', true))
-    .select('v.id', 'v.userId', 'v.crewId', 'v.visitedAt', 'v.replaced', 'v.fuseReplaced', 's.id as stringId', 's.typeId', 'si.clientId')
-  const vans = new Map((await db('stockLocations').whereNotNull('crewId').select('id', 'crewId')).map((l) => [l.crewId, l.id]))
+    .select(
+      'v.id',
+      'v.userId',
+      'v.crewId',
+      'v.visitedAt',
+      'v.replaced',
+      'v.fuseReplaced',
+      's.id as stringId',
+      's.typeId',
+      'si.clientId',
+    )
+  const vans = new Map(
+    (await db('stockLocations').whereNotNull('crewId').select('id', 'crewId')).map((l) => [l.crewId, l.id]),
+  )
   const rows = []
   for (const v of visits) {
     const type = types.get(v.typeId)!

@@ -104,7 +104,15 @@ export async function proposePlan(
     // Each run warns when its stops need more lamps of a class than its van holds (stock-forecast.ts).
     runs: await withStockWarnings(
       db,
-      crews.map((c) => view(body.date, c, result.runs.find((r) => r.crewId === String(c.id)), items, pinned)),
+      crews.map((c) =>
+        view(
+          body.date,
+          c,
+          result.runs.find((r) => r.crewId === String(c.id)),
+          items,
+          pinned,
+        ),
+      ),
     ),
     unassigned: [
       ...refused,

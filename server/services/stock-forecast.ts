@@ -23,13 +23,19 @@ export async function forecastUse(db: Db, stringIds: number[]) {
       else need.set(itemId, { itemName: '', quantity: u.quantity })
     }
   }
-  const names = await db('stockItems').whereIn('id', [...need.keys()]).select('id', 'name')
+  const names = await db('stockItems')
+    .whereIn('id', [...need.keys()])
+    .select('id', 'name')
   for (const n of names) need.get(n.id)!.itemName = n.name
   return need
 }
 
 /** Forecast use of the strings against the crew's van, one line per item needed. */
-export async function vanCover(db: Db, crewId: number, stringIds: number[]): Promise<{ locationId: number; lines: NeedLine[] }> {
+export async function vanCover(
+  db: Db,
+  crewId: number,
+  stringIds: number[],
+): Promise<{ locationId: number; lines: NeedLine[] }> {
   const van = await vanOf(db, crewId)
   const need = await forecastUse(db, stringIds)
   const levels = await db('stockLevels')
@@ -63,7 +69,9 @@ export async function loadOutSheet(db: Db, crewId: number, date: string) {
   const crew = await db('crews').where({ id: crewId }).first('id', 'name')
   if (!crew) throw notFound('Crew')
   const run = await db('runs').where({ crewId, runDate: date }).first('id', 'state')
-  const stops = run ? await db('runStops').where({ runId: run.id }).whereNull('doneAt').select('stringId') : []
+  const stops = run
+    ? await db('runStops').where({ runId: run.id }).whereNull('doneAt').select('stringId')
+    : []
   const cover = await vanCover(
     db,
     crewId,

@@ -28,11 +28,15 @@ export async function changeLevel(trx: Db, c: LevelChange) {
   const { quantity: before, lowAt } = await lockLevel(trx, c.itemId, c.locationId)
   const after = before + c.change
   if (after < 0 && c.change < 0 && !c.allowNegative)
-    throw conflict('stock_insufficient', `Only ${Math.max(0, before)} in stock here; cannot take ${-c.change}.`, {
-      itemId: c.itemId,
-      locationId: c.locationId,
-      available: Math.max(0, before),
-    })
+    throw conflict(
+      'stock_insufficient',
+      `Only ${Math.max(0, before)} in stock here; cannot take ${-c.change}.`,
+      {
+        itemId: c.itemId,
+        locationId: c.locationId,
+        available: Math.max(0, before),
+      },
+    )
   await trx('stockLevels').where({ itemId: c.itemId, locationId: c.locationId }).update({ quantity: after })
   if (crossesLow(before, after, lowAt)) await noticeLowStock(trx, { ...c, quantity: after, lowAt })
   return { before, after, lowAt }

@@ -17,7 +17,13 @@ function fittedBetween(db: Db, q: UsageQuery, zone: string) {
 
 /** Lamps and spares fitted by visits, summed by client and item. */
 export async function usageReport(db: Db, q: UsageQuery, zone: string) {
-  type Row = { clientId: number | null; clientName: string | null; itemId: number; itemName: string; quantity: unknown }
+  type Row = {
+    clientId: number | null
+    clientName: string | null
+    itemId: number
+    itemName: string
+    quantity: unknown
+  }
   const rows: Row[] = await fittedBetween(db, q, zone)
     .join('stockItems as i', 'i.id', 'm.itemId')
     .leftJoin('clients as c', 'c.id', 'm.clientId')
@@ -67,8 +73,15 @@ export async function knownNeeds(db: Db): Promise<Map<number, number>> {
 /** Next season's order: the period's use plus the known needs, less what the depot and vans hold. */
 export async function orderList(db: Db, q: UsageQuery, zone: string) {
   type Sum = { itemId: number; n: unknown }
-  const used: Sum[] = await fittedBetween(db, q, zone).groupBy('m.itemId').select('m.itemId').sum({ n: 'm.quantity' })
-  const stock: Sum[] = await db('stockLevels').where('quantity', '>', 0).groupBy('itemId').select('itemId').sum({ n: 'quantity' })
+  const used: Sum[] = await fittedBetween(db, q, zone)
+    .groupBy('m.itemId')
+    .select('m.itemId')
+    .sum({ n: 'm.quantity' })
+  const stock: Sum[] = await db('stockLevels')
+    .where('quantity', '>', 0)
+    .groupBy('itemId')
+    .select('itemId')
+    .sum({ n: 'quantity' })
   const items = await db('stockItems').where({ active: true }).select('id as itemId', 'name as itemName')
   const toMap = (rows: Sum[]) => new Map(rows.map((r) => [r.itemId, Number(r.n)]))
   return {

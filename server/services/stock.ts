@@ -78,8 +78,19 @@ export function transferStock(db: Db, u: StockUser, b: TransferBody, requestId?:
       userId: u.id,
       at: new Date(),
     })
-    await audit(trx, { userId: u.id, action: 'stock_transfer', entity: 'stock_item', entityId: b.itemId, details: { ...b, movementId }, requestId })
-    return { movementId: Number(movementId), from: await lineOf(trx, from, b.itemId), to: await lineOf(trx, to, b.itemId) }
+    await audit(trx, {
+      userId: u.id,
+      action: 'stock_transfer',
+      entity: 'stock_item',
+      entityId: b.itemId,
+      details: { ...b, movementId },
+      requestId,
+    })
+    return {
+      movementId: Number(movementId),
+      from: await lineOf(trx, from, b.itemId),
+      to: await lineOf(trx, to, b.itemId),
+    }
   })
 }
 

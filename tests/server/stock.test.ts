@@ -25,6 +25,8 @@ const get = (path: string, auth: string) => request(t.app).get(`/api/v1${path}`)
 const post = (path: string, auth: string, body: object) =>
   request(t.app).post(`/api/v1${path}`).set('Authorization', auth).send(body)
 
+const json = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v)
+
 async function count(locationId: number, itemId: number): Promise<number> {
   const res = await get(`/stock?locationId=${locationId}`, supervisor)
   expect(res.status).toBe(200)
@@ -32,7 +34,12 @@ async function count(locationId: number, itemId: number): Promise<number> {
 }
 
 async function setCount(locationId: number, itemId: number, quantity: number) {
-  const res = await post('/stock/adjustments', supervisor, { itemId, locationId, quantity, reason: 'Test count' })
+  const res = await post('/stock/adjustments', supervisor, {
+    itemId,
+    locationId,
+    quantity,
+    reason: 'Test count',
+  })
   expect(res.status).toBe(201)
 }
 
@@ -68,7 +75,12 @@ beforeAll(async () => {
   clientId = s.clientId
   const mine = await get('/stock', crew)
   expect(mine.status).toBe(200)
-  const lines = mine.body.items as { locationId: number; locationKind: string; itemId: number; itemName: string }[]
+  const lines = mine.body.items as {
+    locationId: number
+    locationKind: string
+    itemId: number
+    itemName: string
+  }[]
   expect(new Set(lines.map((l) => l.locationKind))).toEqual(new Set(['van']))
   vanId = lines[0].locationId
   lampId = lines.find((l) => l.itemName === LAMP)!.itemId
@@ -129,8 +141,12 @@ describe('stock', () => {
     expect(moved.body.from.quantity).toBe(45) // 50 − 5
     expect(moved.body.to.quantity).toBe(12) // 7 + 5
     expect(await count(depotId, lampId)).toBe(45)
-    const audit = await t.db('auditLog').where({ action: 'stock_transfer', entityId: lampId }).orderBy('id', 'desc').first()
-    expect(JSON.parse(audit.details)).toMatchObject({ movementId: moved.body.movementId, quantity: 5 })
+    const audit = await t
+      .db('auditLog')
+      .where({ action: 'stock_transfer', entityId: lampId })
+      .orderBy('id', 'desc')
+      .first()
+    expect(json(audit.details)).toMatchObject({ movementId: moved.body.movementId, quantity: 5 })
 
     const fixed = await post('/stock/adjustments', crew, {
       itemId: lampId,
@@ -141,8 +157,12 @@ describe('stock', () => {
     expect(fixed.status).toBe(201)
     expect(fixed.body.change).toBe(-3) // 12 found as 9
     expect(await count(vanId, lampId)).toBe(9)
-    const row = await t.db('auditLog').where({ action: 'stock_adjust', entityId: lampId }).orderBy('id', 'desc').first()
-    expect(JSON.parse(row.details)).toMatchObject({ before: 12, after: 9, reason: 'Three broken in the box' })
+    const row = await t
+      .db('auditLog')
+      .where({ action: 'stock_adjust', entityId: lampId })
+      .orderBy('id', 'desc')
+      .first()
+    expect(json(row.details)).toMatchObject({ before: 12, after: 9, reason: 'Three broken in the box' })
   })
 
   it('refuses a transfer that would take a place below zero with 409, and changes nothing', async () => {
@@ -183,5 +203,40 @@ describe('stock', () => {
       quantity: 1,
     })
     expect(missing.status).toBe(404)
+  })
+
+  it('warns the planner and the load-out sheet when a run needs more lamps than the van holds', async () => {
+    const crewId = (await t.db('users').where({ email: 'crew@example.org' }).first('crewId')).crewId
+    // A stop on the crew's published run whose string is recorded now as 3 catenary lamps out.
+    const stop = await t
+      .db('runStops as rs')
+      .join('runs as r', 'r.id', 'rs.runId')
+      .join('strings as s', 's.id', 'rs.stringId')
+      .join('stringTypes as ty', 'ty.id', 's.typeId')
+      .where({ 'r.crewId': crewId, 'ty.code': 'CAT-F20' })
+      .whereNot('s.id', stringId)
+      .first('rs.queueItemId as id', 's.id as stringId', 'r.runDate')
+    const item = { id: stop.id as number, stringId: stop.stringId as number }
+    await t.db('strings').where({ id: item.stringId }).update({ lampsOut: 3, fuseFailed: false })
+    await setCount(vanId, lampId, 1)
+    const plan = await post('/runs/plan', supervisor, {
+      date: stop.runDate,
+      crewIds: [crewId],
+      itemIds: [item.id],
+    })
+    expect(plan.status).toBe(200)
+    const run = plan.body.runs[0]
+    expect(run.stops.map((s: { stringId: number }) => s.stringId)).toContain(item.stringId)
+    // 3 lamps out against 1 in the van: 2 short.
+    expect(run.stockShortfalls).toContainEqual({ itemId: lampId, itemName: LAMP, need: 3, have: 1, short: 2 })
+
+    const day = '2031-01-15'
+    const [runId] = await t.db('runs').insert({ crewId, runDate: day, state: 'published', version: 1 })
+    await t.db('runStops').insert({ runId, position: 1, queueItemId: item.id, stringId: item.stringId })
+    const sheet = await get(`/stock/load-out?date=${day}`, crew)
+    expect(sheet.status).toBe(200)
+    expect(sheet.body.run).toMatchObject({ id: runId, stops: 1 })
+    expect(sheet.body.lines[0]).toEqual({ itemId: lampId, itemName: LAMP, need: 3, have: 1, short: 2 })
+    expect((await get(`/stock/load-out?date=${day}&crewId=${crewId + 1000}`, crew)).status).toBe(403)
   })
 })

@@ -6,8 +6,9 @@ import { allPlaces, lampItemId } from '../../server/services/stock-places'
 import { loadType } from '../../server/services/strings'
 import { lampsByClass } from '../../shared/stock-use'
 
-const DEPOT_LAMPS = 400
+const DEPOT_LAMPS = 120
 const DEPOT_SPARES = 60
+const SPARES = ['Connector (pair)', 'Cable ties (bag of 100)']
 const VAN_LAMPS = 24
 const VAN_SPARES = 6
 
@@ -17,6 +18,9 @@ export async function seedStock(db: Db) {
   for (const t of await db('stringTypes').select('id')) types.set(t.id, await loadType(db, t.id))
   const lampItems = new Set<number>()
   for (const type of types.values()) for (const c of type.classes) lampItems.add(await lampItemId(db, c))
+  // The migration's spares went with the emptied tables: the demo stocks them again.
+  if (!(await db('stockItems').where({ kind: 'spare' }).first('id')))
+    await db('stockItems').insert(SPARES.map((name) => ({ kind: 'spare', name })))
   const spares = (await db('stockItems').where({ kind: 'spare' }).select('id')).map((r) => r.id as number)
   const levels = []
   for (const [n, p] of places.entries()) {
@@ -25,7 +29,7 @@ export async function seedStock(db: Db) {
       // The second van set out with no spare lamps of the first kind: the planner should warn.
       const short = n === 2 && itemId === [...lampItems][0]
       const quantity = depot ? DEPOT_LAMPS : short ? 0 : VAN_LAMPS
-      levels.push({ locationId: p.id, itemId, quantity, lowAt: depot ? 100 : 5 })
+      levels.push({ locationId: p.id, itemId, quantity, lowAt: depot ? 40 : 5 })
     }
     for (const itemId of spares)
       levels.push({

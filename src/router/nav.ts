@@ -34,7 +34,6 @@ export const NAV: Record<Role, NavItem[]> = {
     { to: '/run', label: "Tonight's run", icon: iconRun },
     { to: '/map', label: 'Map', icon: iconMap },
     { to: '/outbox', label: 'Outbox', icon: iconOutbox },
-    { to: '/stock', label: 'Van stock', icon: iconStock },
     { to: '/calculator', label: 'Calculator', icon: iconCalculator },
   ],
   supervisor: [

@@ -43,6 +43,8 @@ export const estateEditors: readonly Role[] = ['manager', 'admin']
 export const admins: readonly Role[] = ['admin']
 /** Who follow the crews' runs on the map and the printed run sheet. */
 export const runFollowers: readonly Role[] = ['crew', 'supervisor', 'manager']
+/** Who read and move lamp stock: planners everywhere, crews only their own van (server/services/stock-access.ts). */
+export const stockUsers: readonly Role[] = ['crew', 'supervisor', 'manager', 'admin']
 /** Pages that are one role's own work, e.g. `only.crew` for tonight's run. */
 export const only: Record<Role, readonly Role[]> = {
   crew: ['crew'],

@@ -106,4 +106,10 @@ export {
   mdiPinOutline as iconPin,
   mdiSendOutline as iconPublish,
   mdiWarehouse as iconDepot,
+  // Lamp stock
+  mdiPackageVariantClosed as iconStock,
+  mdiSwapHorizontal as iconTransfer,
+  mdiTagEditOutline as iconCount,
+  mdiTruckOutline as iconVan,
+  mdiDotsVertical as iconMore,
 } from '@quasar/extras/mdi-v7'

@@ -17,6 +17,7 @@ import { DEMO_SETTINGS } from '../../server/services/demo-settings'
 import { demoAccounts, DEMO_PASSWORD } from './accounts'
 import { demoBasemap } from './basemap'
 import { isoDay } from '../../shared/iso-time'
+import { seedStock } from './stock'
 
 /** What the server shows in demo mode only: the sign-in page's accounts and the drawn streets. */
 async function saveDemoSettings(db: Db) {
@@ -126,6 +127,7 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
     strings.map((s) => ({ stringId: s.id, lat: s.lat, lng: s.lng, shunted: s.technology === 'filament' })),
     crewRoster,
   )
+  await seedStock(db)
   const safety = users.find((u) => u.role === 'safety')!
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)

@@ -24,6 +24,7 @@ import { settingsRoutes } from './settings'
 import { adminJobRoutes } from './admin-jobs'
 import { auditRoutes } from './audit'
 import { noticeRoutes } from './notices'
+import { stockRoutes } from './stock'
 import { withEstate } from './estate'
 
 // The estate's routes (estate.ts) join the table; paths already here keep their answers.
@@ -52,4 +53,5 @@ export const allRoutes: RouteDef[] = withEstate([
   ...adminJobRoutes,
   ...auditRoutes,
   ...noticeRoutes,
+  ...stockRoutes,
 ])

@@ -12,6 +12,7 @@ import { defineRoute, type RouteDef } from '../route-table'
 import { loadCrews } from '../services/run-items'
 import { proposePlan, publishRuns } from '../services/runs'
 import { listRuns } from '../services/run-list'
+import { withStockWarnings } from '../services/stock-forecast'
 import { askFrom } from '../services/crew-membership'
 import { localToday, shiftDate } from '../../shared/local-time'
 import { nowOf, type AppDeps } from '../deps'
@@ -62,7 +63,8 @@ export const runRoutes: RouteDef[] = [
     response: runsList,
     handler: async ({ deps, query }) => ({
       date: query.date ?? today(deps),
-      runs: await listRuns(deps.db, query.date ?? today(deps)),
+      // The planning board warns when a van cannot cover its run (services/stock-forecast.ts).
+      runs: await withStockWarnings(deps.db, await listRuns(deps.db, query.date ?? today(deps))),
     }),
   }),
   defineRoute({

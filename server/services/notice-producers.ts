@@ -96,3 +96,29 @@ export async function noticeRunPublished(db: Db, r: PublishedRun): Promise<void>
     })
   }
 }
+
+/** A place's count of an item fell to its low-stock level (or below zero): supervisors are told, once. */
+export async function noticeLowStock(
+  db: Db,
+  s: { itemId: number; locationId: number; quantity: number; lowAt: number | null },
+): Promise<void> {
+  const [item, place, supervisors] = await Promise.all([
+    db('stockItems').where({ id: s.itemId }).first('name'),
+    db('stockLocations').where({ id: s.locationId }).first('name'),
+    db('users').where({ role: 'supervisor', active: true }).select('id'),
+  ])
+  const level = s.lowAt === null ? '' : ` (low at ${s.lowAt})`
+  await addNotices(
+    db,
+    supervisors.map((u) => Number(u.id)),
+    {
+      kind: 'low_stock',
+      title: `${place?.name ?? 'A van'} is low on ${item?.name ?? 'an item'}: ${s.quantity} left${level}`,
+      body:
+        s.quantity < 0
+          ? 'More were fitted than the count said were on board: count the van and correct it.'
+          : 'Move more from the depot, or order, before the next run.',
+      link: '/stock',
+    },
+  )
+}

@@ -12,6 +12,7 @@ import { listRuns } from './run-list'
 import { markReportsScheduled } from './queue/report-states'
 import { applyRefusals } from './plan-refusal'
 import { noticeRunPublished, runStopItems } from './notice-producers'
+import { withStockWarnings } from './stock-forecast'
 
 function view(
   date: string,
@@ -100,13 +101,17 @@ export async function proposePlan(
   return {
     date: body.date,
     travelSource: travel.source,
-    runs: crews.map((c) =>
-      view(
-        body.date,
-        c,
-        result.runs.find((r) => r.crewId === String(c.id)),
-        items,
-        pinned,
+    // Each run warns when its stops need more lamps of a class than its van holds (stock-forecast.ts).
+    runs: await withStockWarnings(
+      db,
+      crews.map((c) =>
+        view(
+          body.date,
+          c,
+          result.runs.find((r) => r.crewId === String(c.id)),
+          items,
+          pinned,
+        ),
       ),
     ),
     unassigned: [
@@ -221,5 +226,6 @@ export async function publishRuns(
     const crew = (await loadCrews(db, [n.crewId]))[0]
     for (const m of crew.members) await mailer.send(runMail(config, m, run, n.changed))
   }
-  return { date: body.date, travelSource: plan.travelSource, runs: saved, unassigned: plan.unassigned }
+  const runs = await withStockWarnings(db, saved)
+  return { date: body.date, travelSource: plan.travelSource, runs, unassigned: plan.unassigned }
 }

@@ -10,6 +10,7 @@ import { requireIsolatedFor } from './isolations'
 import { syncStringQueue, type KnownString } from './queue/strings'
 import { writeOnce } from './keyed-write'
 import { refreshSoon } from './queue/refresh-soon'
+import { consumeFitted } from './stock-consume'
 
 const invalid = (field: string, message: string) =>
   badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
@@ -127,6 +128,18 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody, 
     })
   // The queue follows the string as just written: no need to read it back.
   await syncStringQueue(trx, s.id, id, now, { ...s, ...state, clientId: site.clientId })
+  // What was fitted comes off the crew's van in this same commit (a replay never gets here).
+  await consumeFitted(trx, {
+    visitId: id,
+    userId: user.id,
+    crewId: user.crewId,
+    stringId: s.id,
+    clientId: site.clientId,
+    type,
+    lamps: body.replaced,
+    fuse: !!body.fuseReplaced,
+    at: body.visitedAt ? new Date(body.visitedAt) : now,
+  })
   return {
     id: id as number,
     brightLamps: body.brightLamps ?? 0,

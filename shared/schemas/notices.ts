@@ -6,6 +6,7 @@ export const NOTICE_KINDS = [
   'run_changed',
   'certificate_expiring',
   'report_assigned',
+  'low_stock',
 ] as const
 export const noticeKind = z.enum(NOTICE_KINDS)
 export type NoticeKind = z.infer<typeof noticeKind>

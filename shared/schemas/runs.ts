@@ -2,6 +2,7 @@ import { z } from 'zod'
 import { hhmm } from './common'
 import { queueKinds } from './queue'
 import { reportNote } from './report-work'
+import { needLine } from './stock'
 
 export const planBody = z.object({
   date: z.iso.date(),
@@ -62,6 +63,8 @@ export const crewRun = z.object({
   returnAt: z.string(),
   totalTravelMinutes: z.number(),
   totalServiceMinutes: z.number(),
+  /** Plans only: lamp classes the stops need more of than the crew's van holds (stock). */
+  stockShortfalls: z.array(needLine).optional(),
 })
 export type CrewRun = z.infer<typeof crewRun>
 

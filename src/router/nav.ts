@@ -17,6 +17,7 @@ import {
   iconReports,
   iconRun,
   iconSettings,
+  iconStock,
   iconUsers,
 } from '../icons'
 
@@ -40,6 +41,7 @@ export const NAV: Record<Role, NavItem[]> = {
     { to: '/plan', label: 'Plan runs', icon: iconPlan },
     { to: '/map', label: 'Map', icon: iconMap },
     { to: '/crews', label: 'Crews & platforms', icon: iconCrews },
+    { to: '/stock', label: 'Stock', icon: iconStock },
     { to: '/estate/crews', label: 'Edit crews', icon: iconEdit },
   ],
   manager: [
@@ -48,6 +50,7 @@ export const NAV: Record<Role, NavItem[]> = {
     { to: '/estate/clients', label: 'Estate', icon: iconEstate },
     { to: '/energy', label: 'Energy', icon: iconEnergy },
     { to: '/reports', label: 'Reports', icon: iconReports },
+    { to: '/stock', label: 'Stock', icon: iconStock },
     { to: '/audit', label: 'Audit log', icon: iconClock },
   ],
   safety: [
@@ -58,6 +61,7 @@ export const NAV: Record<Role, NavItem[]> = {
   admin: [
     { to: '/users', label: 'Users', icon: iconUsers },
     { to: '/settings', label: 'Settings', icon: iconSettings },
+    { to: '/stock', label: 'Stock', icon: iconStock },
     { to: '/estate/clients', label: 'Estate', icon: iconEstate },
     { to: '/audit', label: 'Audit log', icon: iconClock },
   ],

@@ -7,6 +7,7 @@ import {
   only,
   planners,
   runFollowers,
+  stockUsers,
   type Role,
 } from '../../shared/roles'
 
@@ -71,6 +72,16 @@ const privateRoutes: RouteRecordRaw[] = [
 
   // the estate: clients … platforms (supervisors see crews and platforms only; see components/estate/kinds.ts)
   route('/estate/:kind', 'estate', 'Estate', planners, () => import('../pages/estate/EstatePage.vue')),
+
+  // lamp stock: crews their own van, planners every place
+  route('/stock', 'stock', 'Stock', stockUsers, () => import('../pages/stock/StockPage.vue')),
+  route(
+    '/stock/load-out',
+    'load-out',
+    'Load-out sheet',
+    stockUsers,
+    () => import('../pages/stock/LoadOutPage.vue'),
+  ),
 
   // manager
   route('/overdue', 'overdue', 'Overdue', only.manager, () => import('../pages/overdue/OverduePage.vue')),

@@ -6,6 +6,7 @@ import { estateEditors, planners } from '../../../shared/roles'
 import { estateKinds, type EstateKind } from '../../../shared/schemas/estate'
 import type { Db } from '../../db'
 import { syncStringQueue } from '../queue/strings'
+import { vanOf } from '../stock-places'
 import {
   accrueExposure,
   loadLampClasses,
@@ -143,7 +144,11 @@ export const kindDefs: KindDef[] = [
     unique: [{ field: 'name' }],
     children: ['memberIds'],
     loadChildren: async (db, id) => ({ memberIds: await loadMemberIds(db, id) }),
-    saveChildren: saveMembers,
+    // A new crew gets its van's stock place in the same commit (vanOf finds the one it has).
+    saveChildren: async (trx, id, body, role) => {
+      await saveMembers(trx, id, body, role)
+      await vanOf(trx, id)
+    },
     afterArchive: async (trx, id) => {
       await trx('users').where({ crewId: id }).update({ crewId: null })
     },

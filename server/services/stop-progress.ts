@@ -1,5 +1,7 @@
 // The facts the stop-progress rule reads (shared/stop-progress.ts), loaded for every stop of some
-// saved runs in one query: the visits logged on each stop's string since its run was published.
+// saved runs in one query: the visits logged on each stop's string since its run was first published.
+// A run row is created by its first publish; publishing again mid-shift (an emergency added) moves
+// publishedAt but must not send finished stops back to "to do", so the row's creation is the start.
 import type { Db } from '../db'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { stopState, type StopProgress, type StopVisit } from '../../shared/stop-progress'
@@ -17,10 +19,12 @@ export interface ProgressStop {
 /** Each stop's progress by its run_stops id; stops of runs never published have none. */
 export async function stopProgressOf(
   db: Db,
-  runs: { id: number; publishedAt: unknown }[],
+  runs: { id: number; publishedAt: unknown; createdAt?: unknown }[],
   stops: ProgressStop[],
 ): Promise<Map<number, StopProgress>> {
-  const since = new Map(runs.filter((r) => r.publishedAt).map((r) => [r.id, iso(r.publishedAt)]))
+  const since = new Map(
+    runs.filter((r) => r.publishedAt).map((r) => [r.id, iso(r.createdAt ?? r.publishedAt)]),
+  )
   const out = new Map<number, StopProgress>()
   if (!since.size) return out
   const stringIds = [...new Set(stops.map((s) => s.stringId).filter((id): id is number => !!id))]

@@ -117,6 +117,13 @@ describe('stop progress on the crew run', () => {
       lampsOutAfter: worse.lampsOut + 1,
     })
 
+    // Published again mid-shift (the same stops, as when one is added): what is done stays done.
+    const again = await request(t.app)
+      .post('/api/v1/runs/publish')
+      .set('Authorization', sup)
+      .send({ date, runs: [{ crewId: lantern.id, itemIds: picked.map((p) => p.itemId) }] })
+    expect(again.status).toBe(200)
+
     // The supervisor's view of the same run reads the same.
     const board = await request(t.app).get(`/api/v1/runs?date=${date}`).set('Authorization', sup)
     const run = board.body.runs.find((r: { crewId: number }) => r.crewId === lantern.id)

@@ -7,6 +7,7 @@
 import type { StringDetail } from '../../api/strings'
 import { forecastOf } from '../../api/strings'
 import { lampsOutWords } from '../common/lamps-out-words'
+import { lampTotal } from '../../../shared/visit-rules'
 import { formatDate } from '../../dates'
 import { chanceText, num, plural } from './string-format'
 
@@ -74,7 +75,11 @@ export function actionNumbers(s: StringDetail): ActionNumber[] {
     {
       label: 'Lamps out now',
       value: String(s.lampsOut),
-      note: lampsOutWords({ status: s.status, lampsOut: s.lampsOut, fuseFailed: s.fuseFailed }),
+      note:
+        s.status === 'dark'
+          ? lampsOutWords({ status: s.status, lampsOut: s.lampsOut, fuseFailed: s.fuseFailed })
+          : `Of ${lampTotal(s.type)} lamps${s.fuseFailed ? '; the fuse lamp has failed' : ''}.` +
+            (s.type.wiring === 'series' ? ' Each one out puts more voltage on the rest.' : ''),
       testid: 'number-out',
     },
     { label: 'Chance of going dark', ...risk, testid: 'number-risk' },

@@ -107,7 +107,7 @@ describe('a fixed stop reads done on the run', () => {
     expect(await count('run-done')).toBe(done + 1)
     expect(await count('run-left')).toBe(left - 1)
     // Nothing runs off the side of the phone.
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390)
+    expect(await page.locator('html').evaluate((el) => el.scrollWidth)).toBeLessThanOrEqual(390)
     await after.scrollIntoViewIfNeeded()
     await shot(page, 'run-progress-02-after')
   })

@@ -53,6 +53,8 @@ const STYLES = {
   longWeekday: 'dddd D MMMM',
   /** Thursday 3 December 2026 */
   longWeekdayDate: 'dddd D MMMM YYYY',
+  /** Thursday */
+  weekdayName: 'dddd',
   /** 3 Dec */
   dayMonth: 'D MMM',
   /** 3 Dec, 21:05 */

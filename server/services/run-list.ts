@@ -3,6 +3,7 @@ import type { CrewRun } from '../../shared/schemas/runs'
 import { loadCrews } from './run-items'
 import { isoOrNull } from '../../shared/iso-time'
 import { reportNotesForItems } from './report-notes'
+import { stopProgressOf } from './stop-progress'
 
 /** Saved runs for a date (optionally one crew's), with each stop's string and site. */
 export async function listRuns(db: Db, date: string, crewId?: number): Promise<CrewRun[]> {
@@ -28,6 +29,7 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
       'q.kind',
       'q.summary',
       'q.severity',
+      'q.state as itemState',
       's.assetTag',
       's.lat',
       's.lng',
@@ -41,6 +43,8 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
     db,
     stops.filter((s) => s.kind === 'public_report').map((s) => s.queueItemId as number),
   )
+  // Where each stop stands after the visits logged since its run was published.
+  const progress = await stopProgressOf(db, runs, stops)
   const sites = new Map(
     (await db('sites').select('id', 'name', 'lat', 'lng')).map((s) => [s.id as number, s]),
   )
@@ -81,6 +85,7 @@ export async function listRuns(db: Db, date: string, crewId?: number): Promise<C
             doneAt: isoOrNull(s.doneAt),
             emergency: s.severity === 'emergency',
             reports: (s.queueItemId && notes.get(s.queueItemId)) || [],
+            progress: progress.get(s.id),
           }
         }),
       returnAt: r.returnAt ?? crew.shiftStart,

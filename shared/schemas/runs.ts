@@ -3,6 +3,7 @@ import { hhmm } from './common'
 import { queueKinds } from './queue'
 import { reportNote } from './report-work'
 import { needLine } from './stock'
+import { stopProgress } from '../stop-progress'
 
 export const planBody = z.object({
   date: z.iso.date(),
@@ -44,6 +45,8 @@ export const runStop = z.object({
   emergency: z.boolean().optional(),
   /** Public reports still waiting on the stop's item: the reporters' words, place and photo. */
   reports: z.array(reportNote).optional(),
+  /** On a saved run: where the stop stands after tonight's visits (stop-progress.ts). */
+  progress: stopProgress.optional(),
 })
 export type RunStop = z.infer<typeof runStop>
 

@@ -50,7 +50,8 @@ export function stringIcon(state: StringState, selected: boolean): Icon {
 }
 
 export function clusterIcon(count: number, worst: StringState): Icon {
-  const size = count < 10 ? 48 : count < 100 ? 54 : 60
+  // A group holding a dark string is drawn a size up: Dark is the state that most needs a crew.
+  const size = (count < 10 ? 48 : count < 100 ? 54 : 60) + (worst === 'dark' ? 6 : 0)
   const label = count >= 1000 ? `${Math.round(count / 100) / 10}k` : String(count)
   return divIcon({
     className: 'lw-pin-box',

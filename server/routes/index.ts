@@ -25,6 +25,7 @@ import { adminJobRoutes } from './admin-jobs'
 import { auditRoutes } from './audit'
 import { noticeRoutes } from './notices'
 import { withEstate } from './estate'
+import { seasonRoutes } from './season'
 
 // The estate's routes (estate.ts) join the table; paths already here keep their answers.
 export const allRoutes: RouteDef[] = withEstate([
@@ -52,4 +53,5 @@ export const allRoutes: RouteDef[] = withEstate([
   ...adminJobRoutes,
   ...auditRoutes,
   ...noticeRoutes,
+  ...seasonRoutes,
 ])

@@ -123,6 +123,8 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     lng: s.lng,
     line: parseLine(s.line),
     installedOn: s.installedOn ?? null,
+    seasonState: s.seasonState,
+    storeBin: s.storeBin ?? null,
     lampAgeHours: Math.round(age.lampAgeHours),
     lampExposure: age.lampExposure.map((x) => Math.round(x)),
     exposureAt: isoOrNull(s.exposureAt),

@@ -21,7 +21,7 @@ const day = (n: number) => new Date(Date.now() + n * D).toISOString().slice(0, 1
 // general RCD tripping in 22 ms at 1 × and 12 ms at 5 × (limits 300 ms and 40 ms, BS EN 61008-1).
 const good = { ratedMa: 30, tripMsAt1x: 22, tripMsAt5x: 12, testVolts: 500, megohms: 200, circuitVolts: 230 }
 
-const send = (path: string, body: object, key = randomUUID()) =>
+const send = (path: string, body: object, key: string = randomUUID()) =>
   request(t.app).post(`/api/v1${path}`).set('Authorization', crew).set('Idempotency-Key', key).send(body)
 const commission = (stringId: number, o: object = {}, key?: string) =>
   send(

@@ -25,14 +25,18 @@ export async function up(knex: Knex): Promise<void> {
     t.index(['season_state'], 'strings_season_state_index')
   })
   await knex.schema.alterTable('visits', (t) => {
-    t.enum('kind', ['visit', 'commissioning', 'store_inspection', 'take_down']).notNullable().defaultTo('visit')
+    t.enum('kind', ['visit', 'commissioning', 'store_inspection', 'take_down'])
+      .notNullable()
+      .defaultTo('visit')
   })
   await knex.raw(
     `alter table queue_items modify kind enum(${enumSql([...QUEUE_KINDS, ...SEASON_KINDS])}) not null`,
   )
   await knex.schema.createTable('commissionings', (t) => {
     t.increments('id')
-    t.string('idempotency_key', 64).notNullable().unique({ indexName: 'commissionings_idempotency_key_unique' })
+    t.string('idempotency_key', 64)
+      .notNullable()
+      .unique({ indexName: 'commissionings_idempotency_key_unique' })
     // commissioning: installed and tested before switch-on; store_inspection: the same readings in store
     t.enum('kind', ['commissioning', 'store_inspection']).notNullable()
     t.integer('string_id').unsigned().notNullable().references('strings.id').onDelete('CASCADE')

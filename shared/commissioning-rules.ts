@@ -28,7 +28,11 @@ export interface Judged {
 const SOURCE = "trade-reference §7, one highway authority's conditions"
 
 /** A warning when the string hangs lower than the place allows (never a refusal: the crew may re-hang it). */
-export function clearanceFindings(place: ClearancePlace, heightM: number, supplyVolts?: number): SeasonFinding[] {
+export function clearanceFindings(
+  place: ClearancePlace,
+  heightM: number,
+  supplyVolts?: number,
+): SeasonFinding[] {
   const out: SeasonFinding[] = []
   const min = CLEARANCE_MIN_M[place]
   if (heightM < min)
@@ -50,7 +54,11 @@ export function clearanceFindings(place: ClearancePlace, heightM: number, supply
 export function readingFindings(r: Readings): SeasonFinding[] {
   const out: SeasonFinding[] = []
   if (r.megohms === undefined)
-    out.push({ code: 'insulation_missing', level: 'fail', text: 'No insulation reading: test before switch-on.' })
+    out.push({
+      code: 'insulation_missing',
+      level: 'fail',
+      text: 'No insulation reading: test before switch-on.',
+    })
   else out.push(...(judgeReadings('insulation_test', r)?.findings ?? []))
   if (r.tripMsAt1x === undefined && r.tripMsAt5x === undefined)
     out.push({ code: 'rcd_missing', level: 'fail', text: 'No RCD trip time: test the RCD before switch-on.' })

@@ -131,7 +131,11 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)
   await seedClosedFaults(db, r)
-  await seedSeason(db, now, users.find((u) => u.role === 'crew')!)
+  await seedSeason(
+    db,
+    now,
+    users.find((u) => u.role === 'crew')!,
+  )
   await refreshQueue(db, now)
   await backdateQueue(db, r, now)
   await publishTonight(db, now, users.find((u) => u.role === 'supervisor')!.id)

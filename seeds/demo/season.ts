@@ -27,7 +27,11 @@ export async function seedSeason(db: Db, now: Date, crewUser: { id: number; crew
   }
   // Lit strings only, from the end of the register (the gardens' festoons and motifs).
   const lit: { id: number; assetTag: string; lampsOut: number; status: string; installedOn: string }[] =
-    await db('strings').where('status', 'lit').orderBy('id', 'desc').limit(40).select('id', 'assetTag', 'lampsOut', 'status', 'installedOn')
+    await db('strings')
+      .where('status', 'lit')
+      .orderBy('id', 'desc')
+      .limit(40)
+      .select('id', 'assetTag', 'lampsOut', 'status', 'installedOn')
   const [store, installed, repair, down, commissioned] = [
     lit.slice(0, 3),
     lit.slice(3, 6),

@@ -78,7 +78,8 @@ export const seasonRoutes: RouteDef[] = [
     path: '/strings/:id/season-state',
     access: fieldWorkers,
     tag: 'season',
-    summary: 'Mark a string in service (409 without a passed commissioning since it went up) or back to installed',
+    summary:
+      'Mark a string in service (409 without a passed commissioning since it went up) or back to installed',
     params: idParam,
     body: seasonStateBody,
     response: seasonStateResult,

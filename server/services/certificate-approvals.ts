@@ -43,5 +43,6 @@ export function lapse(c: Cert | undefined, date: string, what: string): string |
 /** The structural approval a column or anchor needs before anything is hung on it (trade-reference §7). */
 export const STRUCTURAL_APPROVAL = {
   kinds: ['column_structural', 'anchor_test'],
-  what: (structureKind: string) => (structureKind === 'column' ? 'column structural test' : 'anchor load test'),
+  what: (structureKind: string) =>
+    structureKind === 'column' ? 'column structural test' : 'anchor load test',
 } as const

@@ -5,7 +5,12 @@
 // (shared/commissioning-rules.ts).
 import type { Db } from '../db'
 import { conflict, notFound } from '../errors'
-import type { CommissioningBody, CommissioningResult, StoreInspectionBody, TestReadings } from '../../shared/schemas/season'
+import type {
+  CommissioningBody,
+  CommissioningResult,
+  StoreInspectionBody,
+  TestReadings,
+} from '../../shared/schemas/season'
 import {
   clearanceFindings,
   judgeSeasonTest,
@@ -145,7 +150,10 @@ export async function recordStoreInspection(
     replay: (trx) => replay(trx, key),
     create: async (trx) => {
       if (!['in_store', 'taken_down', 'needs_repair'].includes(s.seasonState))
-        throw conflict('not_in_store', `${s.assetTag} is up on the street: take it down before a store inspection.`)
+        throw conflict(
+          'not_in_store',
+          `${s.assetTag} is up on the street: take it down before a store inspection.`,
+        )
       const at = body.doneAt ? new Date(body.doneAt) : new Date()
       const readings = await withCircuit(trx, s, body.readings)
       const judged = judgeSeasonTest([...readingFindings(readings), ...lampsOutFindings(body.lampsOut)])

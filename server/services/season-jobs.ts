@@ -16,7 +16,12 @@ export async function stringsUpBySite(db: Db, siteIds: number[]): Promise<Map<nu
 }
 
 /** Minutes on site for one queue item: a take-down's per-string minutes times the strings up there. */
-export function seasonMinutes(kind: string, perString: number, siteId: number | null, up: Map<number, number>) {
+export function seasonMinutes(
+  kind: string,
+  perString: number,
+  siteId: number | null,
+  up: Map<number, number>,
+) {
   if (kind !== 'take_down' || !siteId) return perString
   return perString * Math.max(1, up.get(siteId) ?? 1)
 }

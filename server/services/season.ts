@@ -74,7 +74,12 @@ export async function currentCommissioning(db: Db, stringId: number) {
   const down = await db('takeDowns').where({ stringId }).max({ at: 'doneAt' }).first()
   const q = db('commissionings').where({ stringId, kind: 'commissioning' })
   if (down?.at) q.where('doneAt', '>', down.at)
-  return q.orderBy([{ column: 'doneAt', order: 'desc' }, { column: 'id', order: 'desc' }]).first('id', 'result')
+  return q
+    .orderBy([
+      { column: 'doneAt', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .first('id', 'result')
 }
 
 /** Marks a string in service (only after a passed commissioning) or back to installed (switched off). */
@@ -82,11 +87,17 @@ export async function setSeasonState(db: Db, stringId: number, state: 'in_servic
   return db.transaction(async (trx) => {
     const s = await lockString(trx, stringId)
     if (!['installed', 'in_service'].includes(s.seasonState))
-      throw conflict('not_installed', `${s.assetTag} is ${s.seasonState.replace('_', ' ')}: commission it first.`)
+      throw conflict(
+        'not_installed',
+        `${s.assetTag} is ${s.seasonState.replace('_', ' ')}: commission it first.`,
+      )
     if (state === 'in_service') {
       const c = await currentCommissioning(trx, stringId)
       if (!c)
-        throw conflict('not_commissioned', `${s.assetTag} has no commissioning record since it was installed.`)
+        throw conflict(
+          'not_commissioned',
+          `${s.assetTag} has no commissioning record since it was installed.`,
+        )
       if (!passed(c.result))
         throw conflict(
           'commissioning_failed',

@@ -22,9 +22,16 @@ export async function recordTakeDown(
     index: 'take_downs_idempotency_key_unique',
     lock: async (trx) => (s = await lockString(trx, stringId)),
     replay: async (trx) => {
-      const t = await trx('takeDowns').where({ idempotencyKey: key }).first('id', 'visitId', 'storeBin', 'forRepair')
+      const t = await trx('takeDowns')
+        .where({ idempotencyKey: key })
+        .first('id', 'visitId', 'storeBin', 'forRepair')
       return t
-        ? { id: t.id, visitId: t.visitId, storeBin: t.storeBin, seasonState: t.forRepair ? 'needs_repair' : 'taken_down' }
+        ? {
+            id: t.id,
+            visitId: t.visitId,
+            storeBin: t.storeBin,
+            seasonState: t.forRepair ? 'needs_repair' : 'taken_down',
+          }
         : undefined
     },
     create: async (trx) => {

@@ -35,7 +35,9 @@ export const seasonApi = {
   takeDown: (key: string, stringId: number, body: TakeDownBody) =>
     request<TakeDownResult>('POST', `/strings/${stringId}/take-down`, { body, ...keyed(key) }),
   setState: (stringId: number, state: 'in_service' | 'installed') =>
-    request<z.infer<typeof seasonStateResult>>('PUT', `/strings/${stringId}/season-state`, { body: { state } }),
+    request<z.infer<typeof seasonStateResult>>('PUT', `/strings/${stringId}/season-state`, {
+      body: { state },
+    }),
   commissionings: (query: { stringId?: number; result?: string; limit?: number } = {}) =>
     request<CommissioningList>('GET', '/commissionings', { query }),
   repairs: () => request<RepairList>('GET', '/season/repairs'),

@@ -42,7 +42,14 @@ export async function queueSeasonRecord(save: SeasonSave, userId: number): Promi
     lastError: null,
     sentAt: null,
   }
-  const record: SeasonEntry = { ...base, kind: 'season', key: save.key, seq: nextSeq(), record: save.record, result: null }
+  const record: SeasonEntry = {
+    ...base,
+    kind: 'season',
+    key: save.key,
+    seq: nextSeq(),
+    record: save.record,
+    result: null,
+  }
   const photos: PhotoEntry[] = save.photos.map((p) => ({
     ...base,
     kind: 'photo',

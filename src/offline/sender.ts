@@ -5,7 +5,14 @@ import { ApiError } from '../api/http'
 import { visitsApi } from '../api/visits'
 import { listEntries, putEntry } from './outbox-repo'
 import { reportWorkApi } from '../api/report-work'
-import type { EmergencyEntry, EntryError, OutboxEntry, PhotoEntry, SeasonEntry, VisitEntry } from './outbox-types'
+import type {
+  EmergencyEntry,
+  EntryError,
+  OutboxEntry,
+  PhotoEntry,
+  SeasonEntry,
+  VisitEntry,
+} from './outbox-types'
 import { sendSeasonRecord } from './season-record'
 
 export interface SendHooks {

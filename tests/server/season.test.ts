@@ -42,17 +42,29 @@ beforeAll(async () => {
     takeDownTo: day(20),
   })
   ids.client = clientId
-  ;[ids.site] = await t.db('sites').insert({ clientId, name: `${tag} walk`, kind: 'square', lat: 51.5, lng: -1.5 })
+  ;[ids.site] = await t
+    .db('sites')
+    .insert({ clientId, name: `${tag} walk`, kind: 'square', lat: 51.5, lng: -1.5 })
   const typeId = (await t.db('stringTypes').orderBy('id').first('id')).id
   const structure = async (kind: string, ref: string, cert: object | null) => {
-    const [id] = await t.db('structures').insert({ siteId: ids.site, kind, ref: `${tag}-${ref}`, lat: 51.5, lng: -1.5 })
+    const [id] = await t
+      .db('structures')
+      .insert({ siteId: ids.site, kind, ref: `${tag}-${ref}`, lat: 51.5, lng: -1.5 })
     if (cert)
       await t.db('certificates').insert({ subjectType: 'structure', subjectId: id, result: 'pass', ...cert })
     return id
   }
   // Tested five years ago, due again 20 days ago: lapsed (re-test every 3–6 years, trade-reference §7).
-  ids.lapsed = await structure('column', 'COL-OLD', { kind: 'column_structural', doneOn: day(-1846), nextDue: day(-20) })
-  ids.approved = await structure('column', 'COL-OK', { kind: 'column_structural', doneOn: day(-30), nextDue: day(1500) })
+  ids.lapsed = await structure('column', 'COL-OLD', {
+    kind: 'column_structural',
+    doneOn: day(-1846),
+    nextDue: day(-20),
+  })
+  ids.approved = await structure('column', 'COL-OK', {
+    kind: 'column_structural',
+    doneOn: day(-30),
+    nextDue: day(1500),
+  })
   const string = async (suffix: string, o: object = {}) =>
     (
       await t.db('strings').insert({
@@ -85,7 +97,9 @@ describe('commissioning', () => {
     expect(res.status).toBe(409)
     expect(res.body.error.code).toBe('structure_not_approved')
     expect(res.body.error.message).toMatch(/column structural test expired/)
-    expect(await t.db('commissionings').where({ stringId: ids.onLapsed }).count({ n: '*' })).toEqual([{ n: 0 }])
+    expect(await t.db('commissionings').where({ stringId: ids.onLapsed }).count({ n: '*' })).toEqual([
+      { n: 0 },
+    ])
   })
 
   it('stores one record for a replayed Idempotency-Key', async () => {
@@ -114,7 +128,10 @@ describe('commissioning', () => {
 
 describe('marking in service', () => {
   const mark = (id: number) =>
-    request(t.app).put(`/api/v1/strings/${id}/season-state`).set('Authorization', crew).send({ state: 'in_service' })
+    request(t.app)
+      .put(`/api/v1/strings/${id}/season-state`)
+      .set('Authorization', crew)
+      .send({ state: 'in_service' })
 
   it('needs a passed commissioning', async () => {
     await t.db('strings').where({ id: ids.failing }).update({ seasonState: 'installed' })
@@ -173,12 +190,18 @@ describe('take-down and storage', () => {
 describe('season work in the queue and the planner', () => {
   it('opens installation items per string in store and one take-down per site, on site per string', async () => {
     await syncSeasonItems(t.db, new Date(), [ids.site])
-    const items = await t.db('queueItems').where({ siteId: ids.site, state: 'open' }).select('id', 'kind', 'stringId')
+    const items = await t
+      .db('queueItems')
+      .where({ siteId: ids.site, state: 'open' })
+      .select('id', 'kind', 'stringId')
     const installs = items.filter((i) => i.kind === 'installation').map((i) => i.stringId)
     expect(installs).toContain(ids.onLapsed)
     const downs = items.filter((i) => i.kind === 'take_down')
     expect(downs).toHaveLength(1)
-    const up = await t.db('strings').where({ siteId: ids.site }).whereIn('seasonState', ['installed', 'in_service'])
+    const up = await t
+      .db('strings')
+      .where({ siteId: ids.site })
+      .whereIn('seasonState', ['installed', 'in_service'])
     const info = (await loadItems(t.db, [downs[0].id])).get(downs[0].id)!
     expect(info.serviceMinutes).toBe(20 * up.length)
   })

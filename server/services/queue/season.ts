@@ -108,7 +108,8 @@ export async function syncSeasonItems(db: Db, now = new Date(), siteIds?: number
     .whereIn('q.kind', SEASON_KINDS)
     .whereIn('q.state', ACTIVE)
     .modify((q) => {
-      if (siteIds) q.whereRaw(`coalesce(q.site_id, s.site_id) in (${siteIds.map(() => '?').join(',')})`, siteIds)
+      if (siteIds)
+        q.whereRaw(`coalesce(q.site_id, s.site_id) in (${siteIds.map(() => '?').join(',')})`, siteIds)
     })
     .select('q.id', 'q.openKey')) as { id: number; openKey: string }[]
   const done = active.filter((i) => !wanted.has(i.openKey)).map((i) => i.id as number)
@@ -116,4 +117,5 @@ export async function syncSeasonItems(db: Db, now = new Date(), siteIds?: number
 }
 
 /** One site's season items, in the caller's transaction (after a commissioning or take-down). */
-export const syncSeasonItemsOf = (db: Db, siteId: number, now = new Date()) => syncSeasonItems(db, now, [siteId])
+export const syncSeasonItemsOf = (db: Db, siteId: number, now = new Date()) =>
+  syncSeasonItems(db, now, [siteId])

@@ -54,7 +54,8 @@ export function waitingHeadline(visits: number, others: number): string {
 
 /** A season record in a few words: what it was and what it found. */
 export function seasonSummary(r: SeasonRecord): string {
-  if (r.type === 'take_down') return `Take-down into ${r.body.storeBin}${r.body.forRepair ? ', for repair' : ''}`
+  if (r.type === 'take_down')
+    return `Take-down into ${r.body.storeBin}${r.body.forRepair ? ', for repair' : ''}`
   const what = r.type === 'commissioning' ? 'Commissioning' : 'Inspection in store'
   return `${what}, ${plural(r.body.lampsOut, 'lamp')} out at test`
 }

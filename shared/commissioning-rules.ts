@@ -25,7 +25,8 @@ export interface Judged {
   findings: SeasonFinding[]
 }
 
-const SOURCE = "trade-reference §7, one highway authority's conditions"
+// The words say whose figure it is; the figure's source in our notes is trade-reference §7.
+const SOURCE = "one highway authority's conditions"
 
 /** A warning when the string hangs lower than the place allows (never a refusal: the crew may re-hang it). */
 export function clearanceFindings(

@@ -70,7 +70,7 @@ export async function seedSeason(db: Db, now: Date, crewUser: { id: number; crew
               {
                 code: 'clearance_low',
                 level: 'advisory',
-                text: "Mounted at 3.2 m over the footway: below the 3.5 m minimum (trade-reference §7, one highway authority's conditions). Raise it or agree the height with the highway authority.",
+                text: "Mounted at 3.2 m over the footway: below the 3.5 m minimum (one highway authority's conditions). Raise it or agree the height with the highway authority.",
               },
             ]
           : [],

@@ -73,6 +73,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'v.statusAfter',
       'v.notes',
       'v.isolationId',
+      'v.kind',
     )
   const photos = visits.length
     ? await db('photos')

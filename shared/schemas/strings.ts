@@ -156,6 +156,8 @@ export const stringDetail = z.object({
       statusAfter: statusSchema,
       notes: z.string().nullable(),
       isolationId: z.number().nullable(),
+      /** A relamp visit, or the visit row of a season record (its photos hang on it). */
+      kind: z.enum(['visit', 'commissioning', 'store_inspection', 'take_down']),
       photos: z.array(z.object({ id: z.number(), url: z.string(), thumbUrl: z.string() })),
     }),
   ),

@@ -8,6 +8,7 @@ import { seedPeople } from './people'
 import { seedClientsAndTypes, seedPlaces } from './places'
 import { seedCertificates, seedVisits } from './history'
 import { seedReports } from './reports'
+import { seedSeason } from './season'
 import { typeDefs } from '../../shared/lamp-catalogue'
 import { refreshQueue } from '../../server/jobs/refresh-queue'
 import { listQueue } from '../../server/services/queue/list'
@@ -132,6 +133,11 @@ export async function seedDemo(db: Db, now: Date, opts: { wipe?: boolean } = {})
   const certificates = await seedCertificates(db, r, now, safety.id)
   const reports = await seedReports(db, now)
   await seedClosedFaults(db, r)
+  await seedSeason(
+    db,
+    now,
+    users.find((u) => u.role === 'crew')!,
+  )
   await refreshQueue(db, now)
   await backdateQueue(db, r, now)
   await publishTonight(db, now, users.find((u) => u.role === 'supervisor')!.id)

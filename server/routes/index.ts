@@ -26,6 +26,7 @@ import { auditRoutes } from './audit'
 import { noticeRoutes } from './notices'
 import { stockRoutes } from './stock'
 import { withEstate } from './estate'
+import { seasonRoutes } from './season'
 
 // The estate's routes (estate.ts) join the table; paths already here keep their answers.
 export const allRoutes: RouteDef[] = withEstate([
@@ -54,4 +55,5 @@ export const allRoutes: RouteDef[] = withEstate([
   ...auditRoutes,
   ...noticeRoutes,
   ...stockRoutes,
+  ...seasonRoutes,
 ])

@@ -9,8 +9,7 @@
 // Refused items stay in the queue and are listed as not on any run, with the reason in words.
 import type { Db } from '../db'
 import type { CrewInfo, ItemInfo } from './run-items'
-import { formatDay } from '../../shared/local-time'
-import { config } from '../config'
+import { lapse, newestCertificates as newest, STRUCTURAL_APPROVAL } from './certificate-approvals'
 
 export const REFUSAL_REASONS = ['platform_not_examined', 'structure_not_approved'] as const
 export type RefusalReason = (typeof REFUSAL_REASONS)[number]
@@ -20,40 +19,6 @@ export interface Refused {
   summary: string
   reason: RefusalReason
   message: string
-}
-
-interface Cert {
-  subjectId: number
-  result: string
-  doneOn: string
-  nextDue: string | null
-}
-
-/** The newest record of `kind` for each subject among `ids`. */
-async function newest(db: Db, kind: string[], subjectType: string, ids: number[]) {
-  if (!ids.length) return new Map<number, Cert>()
-  const rows: Cert[] = await db('certificates as c')
-    .whereIn('c.kind', kind)
-    .where('c.subjectType', subjectType)
-    .whereIn('c.subjectId', ids)
-    .whereRaw(
-      'c.id = (select max(c2.id) from certificates c2 where c2.kind = c.kind and c2.subject_type = c.subject_type and c2.subject_id = c.subject_id)',
-    )
-    .select('c.subjectId', 'c.result', 'c.doneOn', 'c.nextDue')
-  // A subject with records of both kinds (should not happen) is judged by its later one.
-  const map = new Map<number, Cert>()
-  for (const r of rows)
-    if (!map.has(r.subjectId) || map.get(r.subjectId)!.doneOn < r.doneOn) map.set(r.subjectId, r)
-  return map
-}
-
-/** Why a record does not cover `date`, in words, or null when it does. */
-function lapse(c: Cert | undefined, date: string, what: string): string | null {
-  const day = (d: string) => formatDay(d, config.APP_LOCALE)
-  if (!c) return `no ${what} on record`
-  if (c.result === 'fail') return `${what} failed ${day(c.doneOn)}`
-  if (c.nextDue && c.nextDue < date) return `${what} expired ${day(c.nextDue)}`
-  return null
 }
 
 /**
@@ -100,7 +65,7 @@ export async function applyRefusals(
     : []
   const approvals = await newest(
     db,
-    ['column_structural', 'anchor_test'],
+    [...STRUCTURAL_APPROVAL.kinds],
     'structure',
     hung.map((h) => h.id as number),
   )
@@ -108,7 +73,7 @@ export async function applyRefusals(
   for (const it of [...keep.values()]) {
     const st = it.stringId ? byString.get(it.stringId) : undefined
     if (!st) continue
-    const what = st.kind === 'column' ? 'column structural test' : 'anchor load test'
+    const what = STRUCTURAL_APPROVAL.what(st.kind)
     const why = lapse(approvals.get(st.id), date, what)
     if (!why) continue
     refused.push({

@@ -4,6 +4,7 @@ import type { PlanCrew, PlanItem } from '../../shared/routing/plan-types'
 import { listQueue } from './queue/list'
 import { badRequest } from '../errors'
 import { rankPriority } from '../../shared/schemas/report-work'
+import { seasonMinutes, stringsUpBySite } from './season-jobs'
 
 /** Minutes on site per kind of work (common practice, no source; set to our crews' own timings). */
 export const SERVICE_MINUTES: Record<string, number> = {
@@ -13,6 +14,9 @@ export const SERVICE_MINUTES: Record<string, number> = {
   public_report: 25,
   certificate_due: 30,
   rcd_failed: 45,
+  // Season work: hang, connect and commission one string; take-down is per string on its site's one job.
+  installation: 45,
+  take_down: 20,
 }
 
 export interface ItemInfo {
@@ -47,6 +51,10 @@ export async function loadItems(db: Db, ids: number[]): Promise<Map<number, Item
       s.geometry as string,
     ]),
   )
+  const up = await stringsUpBySite(
+    db,
+    picked.filter((p) => p.kind === 'take_down' && p.site).map((p) => p.site!.id),
+  )
   return new Map(
     picked.map((p) => [
       p.id,
@@ -59,7 +67,7 @@ export async function loadItems(db: Db, ids: number[]): Promise<Map<number, Item
         siteName: p.site?.name ?? null,
         lat: p.lat!,
         lng: p.lng!,
-        serviceMinutes: SERVICE_MINUTES[p.kind] ?? 30,
+        serviceMinutes: seasonMinutes(p.kind, SERVICE_MINUTES[p.kind] ?? 30, p.site?.id ?? null, up),
         window:
           p.site?.accessFrom && p.site?.accessTo ? { from: p.site.accessFrom, to: p.site.accessTo } : null,
         // Catenaries and festoons hang over the carriageway (≥ 5.2 m): work from a platform.

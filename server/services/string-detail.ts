@@ -73,6 +73,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'v.statusAfter',
       'v.notes',
       'v.isolationId',
+      'v.kind',
     )
   const photos = visits.length
     ? await db('photos')
@@ -123,6 +124,8 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     lng: s.lng,
     line: parseLine(s.line),
     installedOn: s.installedOn ?? null,
+    seasonState: s.seasonState,
+    storeBin: s.storeBin ?? null,
     lampAgeHours: Math.round(age.lampAgeHours),
     lampExposure: age.lampExposure.map((x) => Math.round(x)),
     exposureAt: isoOrNull(s.exposureAt),

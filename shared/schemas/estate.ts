@@ -33,8 +33,13 @@ export const clientBody = z.object({
   switchOn: hhmm,
   duskOffsetMinutes: z.number().int().min(-120).max(120).default(0),
   switchOff: hhmm,
+  /** The season (issue 15): install window, switch-on date (seasonStart), switch-off date (seasonEnd), take-down window. */
+  installFrom: isoDate.nullable().optional(),
+  installTo: isoDate.nullable().optional(),
   seasonStart: isoDate.nullable().optional(),
   seasonEnd: isoDate.nullable().optional(),
+  takeDownFrom: isoDate.nullable().optional(),
+  takeDownTo: isoDate.nullable().optional(),
   tariffPerKwh: z.number().min(0).max(10),
   timeZone,
   /** Shown on the public fault-report page for danger to life. */

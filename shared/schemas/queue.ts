@@ -10,6 +10,8 @@ export const queueKinds = [
   'public_report',
   'certificate_due',
   'rcd_failed',
+  'installation',
+  'take_down',
 ] as const
 export type QueueKind = (typeof queueKinds)[number]
 export const queueKindLabel: Record<QueueKind, string> = {
@@ -19,6 +21,8 @@ export const queueKindLabel: Record<QueueKind, string> = {
   public_report: 'Public report',
   certificate_due: 'Certificate due',
   rcd_failed: 'RCD test failed',
+  installation: 'Installation',
+  take_down: 'Take-down',
 }
 
 /** The kind of item a string in this state needs; the other states need none. */

@@ -2,6 +2,7 @@
 // columns its template, import and export share.
 import { z } from 'zod'
 import { statusSchema } from './string-states'
+import { seasonStateSchema } from './season'
 
 /** Columns the register may sort on: each is a column the Register page shows. */
 export const registerSorts = [
@@ -17,6 +18,7 @@ export const registerSorts = [
   'installedOn',
   'lastVisitAt',
   'forecastDarkAt',
+  'seasonState',
 ] as const
 export type RegisterSort = (typeof registerSorts)[number]
 
@@ -25,6 +27,8 @@ export const registerFilters = z.object({
   siteId: z.coerce.number().int().positive().optional(),
   typeId: z.coerce.number().int().positive().optional(),
   status: statusSchema.optional(),
+  /** The string's season state: in store, installed, in service, taken down, needs repair. */
+  season: seasonStateSchema.optional(),
 })
 export type RegisterFilters = z.infer<typeof registerFilters>
 
@@ -52,6 +56,9 @@ export const registerRow = z.object({
   installedOn: z.string().nullable(),
   lastVisitAt: z.string().nullable(),
   forecastDarkAt: z.string().nullable(),
+  seasonState: seasonStateSchema,
+  /** The store bin it is kept in while down. */
+  storeBin: z.string().nullable(),
   lat: z.number(),
   lng: z.number(),
 })

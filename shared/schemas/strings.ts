@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { statusSchema } from './string-states'
+import { seasonStateSchema } from './season'
 import { circuitResponseSchema } from './engine'
 
 export const bboxQuery = z.object({
@@ -88,6 +89,9 @@ export const stringDetail = z.object({
   lng: z.number(),
   line: z.array(z.tuple([z.number(), z.number()])).nullable(),
   installedOn: z.string().nullable(),
+  /** Where it is in its season (in store, installed, in service, taken down, needs repair) and its bin. */
+  seasonState: seasonStateSchema,
+  storeBin: z.string().nullable(),
   /** Burning hours on the lamps (the older ones, after a relamp), brought up to now. */
   lampAgeHours: z.number(),
   /**
@@ -152,6 +156,8 @@ export const stringDetail = z.object({
       statusAfter: statusSchema,
       notes: z.string().nullable(),
       isolationId: z.number().nullable(),
+      /** A relamp visit, or the visit row of a season record (its photos hang on it). */
+      kind: z.enum(['visit', 'commissioning', 'store_inspection', 'take_down']),
       photos: z.array(z.object({ id: z.number(), url: z.string(), thumbUrl: z.string() })),
     }),
   ),

@@ -3,8 +3,9 @@ import type { PhotoItem } from '../../shared/schemas/photos'
 import type { VisitResult } from '../api/visits'
 import type { VisitDraft } from './visit-record'
 import type { EmergencyLog, EmergencyLogBody } from '../../shared/schemas/report-work'
+import type { SeasonRecord, SeasonSent } from './season-record'
 
-export type EntryKind = 'isolation' | 'visit' | 'photo' | 'emergency'
+export type EntryKind = 'isolation' | 'visit' | 'photo' | 'emergency' | 'season'
 /** pending: waiting or retrying; failed: the server refused it (4xx) and a person must decide; sent: done. */
 export type EntryState = 'pending' | 'failed' | 'sent'
 
@@ -54,6 +55,8 @@ export interface PhotoEntry extends EntryBase {
   visitKey: string
   /** Set instead for an emergency log's photo: the log's key (emergency-record.ts). */
   logKey?: string
+  /** Set instead for a season record's photo (commissioning, take-down): the record's key. */
+  seasonKey?: string
   fileName: string
   /** Dropped once sent, to give the phone its storage back. */
   file: Blob | null
@@ -68,7 +71,14 @@ export interface EmergencyEntry extends EntryBase {
   result: EmergencyLog | null
 }
 
-export type OutboxEntry = IsolationEntry | VisitEntry | PhotoEntry | EmergencyEntry
+/** A commissioning, take-down or store inspection (season-record.ts); its photos follow it. */
+export interface SeasonEntry extends EntryBase {
+  kind: 'season'
+  record: SeasonRecord
+  result: SeasonSent | null
+}
+
+export type OutboxEntry = IsolationEntry | VisitEntry | PhotoEntry | EmergencyEntry | SeasonEntry
 
 /** One save of the visit form as the form hands it over: its requests, built, and what was typed. */
 export interface QueuedSave {

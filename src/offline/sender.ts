@@ -5,7 +5,15 @@ import { ApiError } from '../api/http'
 import { visitsApi } from '../api/visits'
 import { listEntries, putEntry } from './outbox-repo'
 import { reportWorkApi } from '../api/report-work'
-import type { EmergencyEntry, EntryError, OutboxEntry, PhotoEntry, VisitEntry } from './outbox-types'
+import type {
+  EmergencyEntry,
+  EntryError,
+  OutboxEntry,
+  PhotoEntry,
+  SeasonEntry,
+  VisitEntry,
+} from './outbox-types'
+import { sendSeasonRecord } from './season-record'
 
 export interface SendHooks {
   userId: number
@@ -55,9 +63,19 @@ async function sendOne(entry: OutboxEntry, all: OutboxEntry[], hooks: SendHooks)
     const result = await reportWorkApi.logEmergency(entry.itemId, entry.key, entry.body)
     return { ...entry, state: 'sent', sentAt, lastError: null, result }
   }
+  if (entry.kind === 'season') {
+    const result = await sendSeasonRecord(entry)
+    return { ...entry, state: 'sent', sentAt, lastError: null, result }
+  }
   if (entry.logKey) return sendLogPhoto(entry, all, hooks, sentAt)
-  const visit = all.find((e): e is VisitEntry => e.kind === 'visit' && e.key === entry.visitKey)
-  if (!visit?.result) throw new ApiError(400, 'visit_missing', 'The visit for this photo was discarded.')
+  // A season record's photos go to the visit row its record answered with.
+  const season = entry.seasonKey
+    ? all.find((e): e is SeasonEntry => e.kind === 'season' && e.key === entry.seasonKey)
+    : undefined
+  const visit = entry.seasonKey
+    ? season?.result && { result: { id: season.result.visitId } }
+    : all.find((e): e is VisitEntry => e.kind === 'visit' && e.key === entry.visitKey)
+  if (!visit?.result) throw new ApiError(400, 'visit_missing', 'The record for this photo was discarded.')
   if (!entry.file) throw new ApiError(400, 'empty_file', 'The photo is no longer on this phone.')
   hooks.onProgress(entry.key, 0)
   try {

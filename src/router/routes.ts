@@ -50,6 +50,27 @@ const privateRoutes: RouteRecordRaw[] = [
     fieldWorkers,
     () => import('../pages/visit/LogVisitPage.vue'),
   ),
+  route(
+    '/strings/:id/commission',
+    'commission',
+    'Commission',
+    fieldWorkers,
+    () => import('../pages/season/CommissioningPage.vue'),
+  ),
+  route(
+    '/strings/:id/store-inspection',
+    'store-inspection',
+    'Inspect in store',
+    fieldWorkers,
+    () => import('../pages/season/CommissioningPage.vue'),
+  ),
+  route(
+    '/strings/:id/take-down',
+    'take-down',
+    'Take down',
+    fieldWorkers,
+    () => import('../pages/season/TakeDownPage.vue'),
+  ),
   route('/scan', 'scan', 'Scan a label', fieldWorkers, () => import('../pages/scan/ScanPage.vue')),
   route(
     '/runs/print',

@@ -16,6 +16,7 @@ import { sendPending } from '../offline/sender'
 import { recordVisitResult } from '../offline/string-cache'
 import type { VisitDraft } from '../offline/visit-record'
 import { useAuthStore } from './auth'
+import { queueSeasonRecord, type SeasonSave } from '../offline/season-record'
 
 const LOCK_NAME = 'lampwright-outbox'
 
@@ -71,6 +72,14 @@ export const useOutboxStore = defineStore('outbox', () => {
     const groupId = await queueSave(toQueuedSave(draft), auth.user.id)
     await refresh()
     return groupId
+  }
+
+  /** A commissioning, store inspection or take-down: on the phone first, then sent with its photos. */
+  async function saveSeason(s: SeasonSave): Promise<void> {
+    if (!auth.user) throw new Error('Sign in before saving.')
+    await queueSeasonRecord(s, auth.user.id)
+    await refresh()
+    void flush()
   }
 
   function setProgress(key: string, fraction: number | null): void {
@@ -200,6 +209,7 @@ export const useOutboxStore = defineStore('outbox', () => {
     refresh,
     pendingVisitsFor,
     save,
+    saveSeason,
     flush,
     sendNow,
     retry,

@@ -6,6 +6,7 @@ import { wakeSnoozed } from './actions'
 import type { Db } from '../../db'
 import { syncCertificateItems } from './certificates'
 import { syncReportItems } from './reports'
+import { syncSeasonItems } from './season'
 import { syncForecastItems, syncStateItems, type StringForecastRisk } from './strings'
 
 const openCount = async (db: Db) =>
@@ -24,6 +25,7 @@ export async function rebuildQueue(
   await syncForecastItems(db, risks, now)
   await syncReportItems(db, now)
   await syncCertificateItems(db, now)
+  await syncSeasonItems(db, now)
   const after = await openCount(db)
   return { opened: Math.max(0, after - before), open: after, synced }
 }

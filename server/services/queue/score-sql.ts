@@ -23,6 +23,8 @@ export function scoreSql(db: Db, now: Date): Knex.Raw {
     when 'forecast_dark' then 30
     when 'public_report' then case when r.hazard then 50 else 25 end
     when 'rcd_failed' then 50
+    when 'installation' then 20
+    when 'take_down' then 20
     else case when q.open_key like 'certificate\\_due:failed:%'
         then case when q.severity = 'emergency' then 50 else 40 end
       when ${hoursLeft} < 0 then 35 else 15 end end`

@@ -65,6 +65,16 @@ export function scoreItem(r: Row, now: Date) {
       risk = 50
       why.push('RCD failed its test: no additional protection')
       break
+    case 'installation':
+    case 'take_down':
+      // Planned season work: it waits behind faults until its window runs short (the clock part).
+      risk = 20
+      why.push(
+        r.kind === 'installation'
+          ? "Season work: install within the client's window"
+          : "Season work: take down within the client's window",
+      )
+      break
     default:
       // A failed test or examination (queue/certificates.ts opens it as `certificate_due:failed:…`).
       if (r.openKey?.startsWith('certificate_due:failed:')) {

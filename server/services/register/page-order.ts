@@ -14,6 +14,8 @@ const own: Partial<Record<RegisterSort, string>> = {
   installedOn: 's.installed_on',
   lastVisitAt: 's.last_visit_at',
   forecastDarkAt: 's.forecast_dark_at',
+  // ENUM order again: in store, installed, in service, taken down, needs repair (the season's course).
+  seasonState: 's.season_state',
 }
 
 // The foreign key of each other table's column, and its rows ranked by that column in SQL (so the
@@ -65,6 +67,7 @@ export async function matching(db: Db, f: RegisterFilters): Promise<() => Knex.Q
     if (f.siteId) q.where('s.siteId', f.siteId)
     if (f.typeId) q.where('s.typeId', f.typeId)
     if (f.status) q.where('s.status', f.status)
+    if (f.season) q.where('s.seasonState', f.season)
     if (like)
       q.where((w) => {
         w.where('s.assetTag', 'like', like).orWhere('s.name', 'like', like)

@@ -3,12 +3,14 @@ import { isolationSteps } from '../../../shared/schemas/visits'
 import { emergencyOutcomeLabel } from '../../../shared/schemas/report-work'
 import type { OutboxEntry } from '../../offline/outbox-types'
 import { formatDate, isToday } from '../../dates'
+import type { SeasonRecord } from '../../offline/season-record'
 
 export const KIND_WORD: Record<OutboxEntry['kind'], string> = {
   isolation: 'Isolation',
   visit: 'Visit',
   photo: 'Photo',
   emergency: 'Emergency log',
+  season: 'Season record',
 }
 
 function plural(n: number, one: string, many = `${one}s`): string {
@@ -19,6 +21,7 @@ export function entrySummary(e: OutboxEntry): string {
   if (e.kind === 'photo') return e.fileName
   if (e.kind === 'isolation') return `${e.body.steps.length} of ${isolationSteps.length} steps stamped`
   if (e.kind === 'emergency') return emergencyOutcomeLabel[e.body.outcome]
+  if (e.kind === 'season') return seasonSummary(e.record)
   const b = e.body
   const parts = [`${b.failedFound} found`, `${b.replaced} replaced`]
   if (b.fuseReplaced) parts.push('fuse lamp replaced')
@@ -47,4 +50,12 @@ export function waitingHeadline(visits: number, others: number): string {
   if (visits === 0) return `${plural(others, 'item')} waiting to send`
   const rest = others ? ` (and ${plural(others, 'other item')})` : ''
   return `${plural(visits, 'visit')} waiting to send${rest}`
+}
+
+/** A season record in a few words: what it was and what it found. */
+export function seasonSummary(r: SeasonRecord): string {
+  if (r.type === 'take_down')
+    return `Take-down into ${r.body.storeBin}${r.body.forRepair ? ', for repair' : ''}`
+  const what = r.type === 'commissioning' ? 'Commissioning' : 'Inspection in store'
+  return `${what}, ${plural(r.body.lampsOut, 'lamp')} out at test`
 }

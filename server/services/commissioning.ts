@@ -22,6 +22,12 @@ import { writeOnce } from './keyed-write'
 import { lapse, newestCertificates, STRUCTURAL_APPROVAL } from './certificate-approvals'
 import { clientDay, insertSeasonVisit, lockString, type Author, type SeasonString } from './season'
 import { syncSeasonItemsOf } from './queue/season'
+import { consumeFitted } from './stock-consume'
+import { loadType } from './strings'
+
+/** The client a site belongs to (for the season's stock use by client). */
+const siteClient = async (db: Db, siteId: number) =>
+  ((await db('sites').where({ id: siteId }).first('clientId'))?.clientId as number | undefined) ?? null
 
 const parse = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v)
 
@@ -118,6 +124,18 @@ export async function recordCommissioning(
         notes: body.notes ?? null,
         lat: body.lat ?? null,
         lng: body.lng ?? null,
+      })
+      // Lamps fitted while putting it up come off the crew's van in this same commit, as on a visit.
+      await consumeFitted(trx, {
+        visitId,
+        userId: user.id,
+        crewId: user.crewId,
+        stringId: s.id,
+        clientId: await siteClient(trx, s.siteId),
+        type: await loadType(trx, s.typeId),
+        lamps: body.lampsFitted,
+        fuse: body.fuseFitted,
+        at,
       })
       // Up on its fixing either way; only a passed record lets it go in service (season.ts).
       await trx('strings')

@@ -46,6 +46,10 @@ export const commissioningBody = z.object({
   readings: testReadings,
   /** Lamps out at the switch-on test. */
   lampsOut: count,
+  /** Lamps fitted while putting it up (they come off the crew's van). */
+  lampsFitted: count.default(0),
+  /** Whether a fuse lamp was fitted while putting it up. */
+  fuseFitted: z.boolean().default(false),
   doneAt: isoInstant.optional(),
   notes: z.string().trim().max(1000).optional(),
   lat: z.number().min(-90).max(90).optional(),

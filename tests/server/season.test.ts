@@ -102,15 +102,24 @@ describe('commissioning', () => {
     ])
   })
 
-  it('stores one record for a replayed Idempotency-Key', async () => {
+  it('stores one record for a replayed Idempotency-Key, and takes the lamps fitted off the van once', async () => {
+    const fitted = () =>
+      t
+        .db('stockMovements')
+        .where({ kind: 'fitted', stringId: ids.replayed })
+        .sum({ n: 'quantity' })
+        .first()
+        .then((r) => Number(r?.n ?? 0))
     const key = randomUUID()
-    const first = await commission(ids.replayed, {}, key)
-    const again = await commission(ids.replayed, {}, key)
+    const first = await commission(ids.replayed, { lampsFitted: 2 }, key)
+    const again = await commission(ids.replayed, { lampsFitted: 2 }, key)
     expect(first.status).toBe(201)
     expect(again.status).toBe(200)
     expect(again.body.id).toBe(first.body.id)
     const [{ n }] = await t.db('commissionings').where({ stringId: ids.replayed }).count({ n: '*' })
     expect(Number(n)).toBe(1)
+    // Two lamps fitted while putting it up, recorded once for all the replay.
+    expect(await fitted()).toBe(2)
   })
 
   it('warns below the clearance of trade-reference §7 (3.5 m over a footway, 5.2 m over a carriageway)', async () => {

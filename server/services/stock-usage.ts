@@ -44,28 +44,49 @@ export async function usageReport(db: Db, q: UsageQuery, zone: string) {
   }
 }
 
+/** The spare that replaces a damaged connector (stock migration's spares). */
+const CONNECTOR_ITEM = 'Connector (pair)'
+
 /**
- * What is known to be needed before the strings go up again, by item: today the lamps still out and
- * failed fuse lamps recorded on the strings (the repair record). Take-down records, when they exist,
- * add their counted lamps out and damage here: this is the one function to extend.
+ * What is known to be needed before the strings go up again, by item: for a string that is down (taken
+ * down or on the repair list) the lamps its latest take-down counted out, and a connector pair when
+ * that take-down found its connectors damaged; for any other string the lamps still out and a failed
+ * fuse lamp recorded on it.
  */
 export async function knownNeeds(db: Db): Promise<Map<number, number>> {
-  type Row = { typeId: number; lampsOut: number; fuseFailed: number | boolean; n: unknown }
-  const rows: Row[] = await db('strings')
-    .whereNull('archivedAt')
-    .where((w) => w.where('lampsOut', '>', 0).orWhere('fuseFailed', true))
-    .groupBy('typeId', 'lampsOut', 'fuseFailed')
-    .select('typeId', 'lampsOut', 'fuseFailed')
-    .count({ n: '*' })
+  type Row = { typeId: number; lampsOut: number; fuseFailed: number | boolean; connectors: string | null }
+  const latest = db.raw('(select max(t2.id) from take_downs t2 where t2.string_id = s.id)')
+  const rows: Row[] = await db('strings as s')
+    .leftJoin('takeDowns as t', function () {
+      this.on('t.stringId', 's.id').andOn('t.id', latest)
+    })
+    .whereNull('s.archivedAt')
+    .select(
+      's.typeId',
+      's.fuseFailed',
+      // Down with a take-down record: its count; otherwise the string's own.
+      db.raw(
+        "case when s.season_state in ('taken_down', 'needs_repair') and t.id is not null then t.lamps_out else s.lamps_out end as lamps_out",
+      ),
+      db.raw(
+        "case when s.season_state in ('taken_down', 'needs_repair') then t.connectors else null end as connectors",
+      ),
+    )
   const needs = new Map<number, number>()
+  const add = (itemId: number, n: number) => needs.set(itemId, (needs.get(itemId) ?? 0) + n)
   const types = new Map<number, Awaited<ReturnType<typeof loadType>>>()
+  let connectors = 0
   for (const r of rows) {
+    if (r.connectors === 'damaged') connectors++
+    if (!(Number(r.lampsOut) > 0) && !r.fuseFailed) continue
     if (!types.has(r.typeId)) types.set(r.typeId, await loadType(db, r.typeId))
     const type = types.get(r.typeId)!
-    for (const u of lampsByClass(type, { lamps: Number(r.lampsOut), fuse: !!r.fuseFailed })) {
-      const itemId = await lampItemId(db, type.classes[u.classIndex])
-      needs.set(itemId, (needs.get(itemId) ?? 0) + u.quantity * Number(r.n))
-    }
+    for (const u of lampsByClass(type, { lamps: Number(r.lampsOut), fuse: !!r.fuseFailed }))
+      add(await lampItemId(db, type.classes[u.classIndex]), u.quantity)
+  }
+  if (connectors) {
+    const item = await db('stockItems').where({ name: CONNECTOR_ITEM }).first('id')
+    if (item) add(item.id, connectors)
   }
   return needs
 }

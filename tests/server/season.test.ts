@@ -161,14 +161,28 @@ describe('marking in service', () => {
 })
 
 describe('take-down and storage', () => {
-  it('takes a string down into its store bin', async () => {
+  it("takes a string down into its store bin, and next season's order counts what it found", async () => {
+    const supervisor = `Bearer ${await t.token('supervisor')}`
+    const needed = async () => {
+      const res = await request(t.app).get('/api/v1/stock/order-list').set('Authorization', supervisor)
+      expect(res.status).toBe(200)
+      const lines = res.body.lines as { itemName: string; needed: number }[]
+      const lamps = lines.filter((l) => l.itemName.startsWith('Lamp ')).reduce((n, l) => n + l.needed, 0)
+      const connectors = lines.find((l) => l.itemName === 'Connector (pair)')?.needed ?? 0
+      return { lamps, connectors }
+    }
+    const before = await needed()
     const res = await send(`/strings/${ids.down}/take-down`, {
       lampsOut: 2,
       cable: 'good',
-      connectors: 'worn',
+      connectors: 'damaged',
       storeBin: 'Depot A-03',
     })
     expect(res.status).toBe(201)
+    // Two lamps counted out and one damaged pair of connectors: exactly that much more to order.
+    const after = await needed()
+    expect(after.lamps - before.lamps).toBe(2)
+    expect(after.connectors - before.connectors).toBe(1)
     expect(res.body).toMatchObject({ seasonState: 'taken_down', storeBin: 'Depot A-03' })
     const s = await t.db('strings').where({ id: ids.down }).first('seasonState', 'storeBin')
     expect(s).toEqual({ seasonState: 'taken_down', storeBin: 'Depot A-03' })

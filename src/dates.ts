@@ -5,6 +5,7 @@ import dayjs from 'dayjs'
 import utc from 'dayjs/plugin/utc.js'
 import timezone from 'dayjs/plugin/timezone.js'
 import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, localDay } from '../shared/local-time'
+import * as numbers from '../shared/number-format'
 
 dayjs.extend(utc)
 dayjs.extend(timezone)
@@ -84,8 +85,21 @@ export function formatDate(at: DateInput | null | undefined, style: DateStyle, e
 
 /** A number in the app's locale (grouping and decimal marks), at most `digits` decimals. */
 export function formatNumber(n: number, digits = 0): string {
-  return new Intl.NumberFormat(locale, { maximumFractionDigits: digits }).format(n)
+  return numbers.formatNumber(n, digits, locale)
 }
+/** Exactly `digits` decimals, for columns that line up. */
+export function formatFixed(n: number, digits: number): string {
+  return numbers.formatFixed(n, digits, locale)
+}
+/** Money at the one precision (pounds and pence): £42.61, £1,960.00. */
+export function formatMoney(n: number): string {
+  return numbers.formatMoney(n, locale)
+}
+/** A count with its noun: "1 fuse lamp", "10,010 visits". */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return numbers.plural(n, one, many, locale)
+}
+export const agree = numbers.agree
 
 /** Today's calendar day in the app's zone (YYYY-MM-DD). */
 export function today(): string {

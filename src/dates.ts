@@ -101,6 +101,30 @@ export function plural(n: number, one: string, many = `${one}s`): string {
 }
 export const agree = numbers.agree
 
+/**
+ * A calendar day typed by a person, as the app shows it ("3 Dec 2026", "3 December 2026") or as
+ * YYYY-MM-DD, into YYYY-MM-DD; null when it is not a real day.
+ */
+export function parseDay(text: string): string | null {
+  const t = text.trim()
+  let y: number, m: number, d: number
+  const iso = /^(\d{4})-(\d{2})-(\d{2})$/.exec(t)
+  const words = /^(\d{1,2})\s+([^\s\d,.]+)\.?,?\s+(\d{4})$/u.exec(t)
+  if (iso) [y, m, d] = [Number(iso[1]), Number(iso[2]), Number(iso[3])]
+  else if (words) {
+    const name = words[2].toLocaleLowerCase(locale)
+    const month = Array.from({ length: 12 }, (_, i) => dayjs().month(i)).findIndex(
+      (at) =>
+        at.format('MMM').toLocaleLowerCase(locale).replace(/\.$/, '') === name ||
+        at.format('MMMM').toLocaleLowerCase(locale) === name,
+    )
+    if (month < 0) return null
+    ;[y, m, d] = [Number(words[3]), month + 1, Number(words[1])]
+  } else return null
+  const day = `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`
+  return dayjs(day).isValid() && dayjs(day).format(STYLES.isoDate) === day ? day : null
+}
+
 /** Today's calendar day in the app's zone (YYYY-MM-DD). */
 export function today(): string {
   return localDay(new Date(), zone)

@@ -2,10 +2,9 @@ import type { EnergyClient, EnergyLine } from '../../api/energy'
 import { appTimeZone, formatDate, formatFixed, formatMoney, formatNumber } from '../../dates'
 import { localClock } from '../../../shared/local-time'
 
-/** Fewer decimals as numbers grow, with grouping marks: 0.74, 11.9, 1,562. */
+/** One decimal under 100, whole above, with grouping marks: 0.7, 9.6, 11.9, 1,562. */
 export function amount(n: number): string {
-  const abs = Math.abs(n)
-  return formatFixed(n, abs >= 100 ? 0 : abs >= 10 ? 1 : 2)
+  return formatFixed(n, Math.abs(n) >= 100 ? 0 : 1)
 }
 export const watts = (w: number) => formatNumber(w)
 export const kw = (w: number) => amount(w / 1000)

@@ -28,7 +28,6 @@ export const DEFAULT_COLUMNS: RegisterColumn[] = [
   'type',
   'site',
   'lastVisitAt',
-  'forecastDarkAt',
 ]
 
 export const COLUMNS_KEY = 'lw.register.columns'

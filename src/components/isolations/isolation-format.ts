@@ -91,8 +91,9 @@ export function stepRows(record: Pick<IsolationRecord, 'steps'>): StepRow[] {
 /** What a step recorded, with its unit: the RCD test's trip time is typed in milliseconds ("24 ms"). */
 export function stepValueText(step: string, value: string | null): string | null {
   if (value === null || value.trim() === '') return null
-  const n = Number(value)
-  if (step === 'rcd_test' && Number.isFinite(n)) return `tripped in ${formatNumber(n, 1)} ms`
+  // Typed on the phone as "24" or "24 ms": the same words either way.
+  const ms = /^\s*(\d+(?:\.\d+)?)\s*(?:ms)?\s*$/i.exec(value)
+  if (step === 'rcd_test' && ms) return `tripped in ${formatNumber(Number(ms[1]), 1)} ms`
   return value
 }
 

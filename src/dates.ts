@@ -5,6 +5,7 @@ import dayjs from 'dayjs'
 import utc from 'dayjs/plugin/utc.js'
 import timezone from 'dayjs/plugin/timezone.js'
 import { DEFAULT_LOCALE, DEFAULT_TIME_ZONE, localDay } from '../shared/local-time'
+import * as numbers from '../shared/number-format'
 
 dayjs.extend(utc)
 dayjs.extend(timezone)
@@ -86,7 +87,44 @@ export function formatDate(at: DateInput | null | undefined, style: DateStyle, e
 
 /** A number in the app's locale (grouping and decimal marks), at most `digits` decimals. */
 export function formatNumber(n: number, digits = 0): string {
-  return new Intl.NumberFormat(locale, { maximumFractionDigits: digits }).format(n)
+  return numbers.formatNumber(n, digits, locale)
+}
+/** Exactly `digits` decimals, for columns that line up. */
+export function formatFixed(n: number, digits: number): string {
+  return numbers.formatFixed(n, digits, locale)
+}
+/** Money at the one precision (pounds and pence): £42.61, £1,960.00. */
+export function formatMoney(n: number): string {
+  return numbers.formatMoney(n, locale)
+}
+/** A count with its noun: "1 fuse lamp", "10,010 visits". */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return numbers.plural(n, one, many, locale)
+}
+export const agree = numbers.agree
+
+/**
+ * A calendar day typed by a person, as the app shows it ("3 Dec 2026", "3 December 2026") or as
+ * YYYY-MM-DD, into YYYY-MM-DD; null when it is not a real day.
+ */
+export function parseDay(text: string): string | null {
+  const t = text.trim()
+  let y: number, m: number, d: number
+  const iso = /^(\d{4})-(\d{2})-(\d{2})$/.exec(t)
+  const words = /^(\d{1,2})\s+([^\s\d,.]+)\.?,?\s+(\d{4})$/u.exec(t)
+  if (iso) [y, m, d] = [Number(iso[1]), Number(iso[2]), Number(iso[3])]
+  else if (words) {
+    const name = words[2].toLocaleLowerCase(locale)
+    const month = Array.from({ length: 12 }, (_, i) => dayjs().month(i)).findIndex(
+      (at) =>
+        at.format('MMM').toLocaleLowerCase(locale).replace(/\.$/, '') === name ||
+        at.format('MMMM').toLocaleLowerCase(locale) === name,
+    )
+    if (month < 0) return null
+    ;[y, m, d] = [Number(words[3]), month + 1, Number(words[1])]
+  } else return null
+  const day = `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`
+  return dayjs(day).isValid() && dayjs(day).format(STYLES.isoDate) === day ? day : null
 }
 
 /** Today's calendar day in the app's zone (YYYY-MM-DD). */

@@ -40,6 +40,8 @@ export {
   mdiShieldAccountOutline as iconRole,
   // Actions
   mdiAlarmSnooze as iconSnooze,
+  mdiAlarm as iconWake,
+  mdiViewColumnOutline as iconColumns,
   mdiArrowDown as iconDown,
   mdiArrowUp as iconUp,
   mdiCallMerge as iconMerge,

@@ -2,7 +2,9 @@
 // as calendar days (a certificate falls due on a day, counted on its client's clock).
 import type { Config } from '../config'
 import type { MailMessage } from '../mail/mailer'
-import { baseUrl, renderMail } from '../mail/templates'
+import { renderMail } from '../mail/templates'
+import { publicLink } from '../public-url'
+import { plural } from '../../shared/number-format'
 import { formatDay, formatInZone } from '../../shared/local-time'
 import { certificateKindLabel, type ReminderStage } from '../../shared/schemas/certificates'
 
@@ -21,8 +23,6 @@ const HEADINGS: Record<ReminderStage, string> = {
   days_14: 'Due within 14 days',
   days_30: 'Due within 30 days',
 }
-
-const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? '' : 's'}`
 
 /** One line for the subject and the notice, e.g. "Certificates: 1 expired, 2 due within 30 days". */
 export function reminderTitle(list: Reminder[]): string {
@@ -59,7 +59,7 @@ export function reminderMail(
   const parts = renderMail(config, 'certificate-reminders', subject, {
     name: to.name,
     groups,
-    link: `${baseUrl(config)}/certificates`,
+    link: publicLink(config, '/certificates'),
   })
   return { to: to.email, ...parts, topic: 'certificate_reminder' }
 }

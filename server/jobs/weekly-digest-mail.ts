@@ -5,9 +5,10 @@ import type { MailMessage } from '../mail/mailer'
 import { formatDay, formatInZone } from '../../shared/local-time'
 import { certificateKindLabel } from '../../shared/schemas/certificates'
 import type { Digest, DigestClient } from './weekly-digest'
+import { publicBaseUrl } from '../public-url'
+import { plural } from '../../shared/number-format'
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`)
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`
 
 function clientLine(c: Omit<DigestClient, 'id' | 'name'>, locale: string): string {
   const hours = c.darkHours.toLocaleString(locale, { minimumFractionDigits: 1, maximumFractionDigits: 1 })
@@ -24,7 +25,7 @@ export function digestMail(config: Config, to: { email: string; name: string }, 
   const zone = config.APP_TIME_ZONE
   const locale = config.APP_LOCALE
   const when = (at: Date) => formatInZone(at, zone, locale, 'dateTime')
-  const base = config.PUBLIC_URL ?? `http://localhost:${config.PORT}`
+  const base = publicBaseUrl(config)
   const subject = `Lampwright weekly digest: week to ${formatInZone(d.to, zone, locale, 'date')}`
   const busy = d.clients.filter(
     (c) => c.overdueNow || c.darkHours || c.faultsFound || c.faultsFixed || c.lampsReplaced,

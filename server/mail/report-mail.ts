@@ -5,7 +5,8 @@ import { randomBytes } from 'node:crypto'
 import type { Db } from '../db'
 import type { Config } from '../config'
 import type { MailMessage } from './mailer'
-import { baseUrl, mailClock, renderMail } from './templates'
+import { mailClock, renderMail } from './templates'
+import { publicLink } from '../public-url'
 import { hashToken } from '../services/users'
 import { clientZone } from '../services/zones'
 
@@ -27,7 +28,7 @@ export const reportTopics: Record<ReportMailKind, string> = {
 
 /** The public status page for `ref`; with `token`, the same page offering to erase the address. */
 export function reportLinks(config: Config, ref: string, token: string) {
-  const status = `${baseUrl(config)}/report?ref=${encodeURIComponent(ref)}`
+  const status = publicLink(config, '/report', { ref })
   return { status, erase: `${status}&erase=${encodeURIComponent(token)}` }
 }
 

@@ -1,7 +1,8 @@
 import type { Config } from '../config'
 import type { MailMessage } from './mailer'
 import type { CrewRun } from '../../shared/schemas/runs'
-import { baseUrl, renderMail } from './templates'
+import { renderMail } from './templates'
+import { publicLink } from '../public-url'
 import { formatDay } from '../../shared/local-time'
 
 const mapsLink = (lat: number, lng: number) => `geo:${lat},${lng}`
@@ -26,7 +27,7 @@ export function runMail(
     depot: run.depot.name,
     platform: run.platform ?? null,
     returnAt: run.returnAt,
-    link: `${baseUrl(config)}/run?date=${run.date}`,
+    link: publicLink(config, '/run', { date: run.date }),
     stops: run.stops.map((s) => ({
       arrive: s.arrive,
       depart: s.depart,

@@ -7,14 +7,11 @@ import type { Config } from '../config'
 import type { MailMessage } from './mailer'
 import { roleLabel, type Role } from '../../shared/roles'
 import { formatInZone } from '../../shared/local-time'
+import { publicBaseUrl, publicLink } from '../public-url'
 
 const views = fileURLToPath(new URL('./views', import.meta.url))
 const htmlViews = new Eta({ views, cache: true })
 const textViews = new Eta({ views, cache: true, autoEscape: false, autoTrim: false })
-
-export function baseUrl(config: Config): string {
-  return config.PUBLIC_URL ?? `http://localhost:${config.PORT}`
-}
 
 /** The zone and locale dates are written in: `zone` (a client's, from services/zones.ts) or the app's. */
 export function mailClock(config: Config, zone?: string | null) {
@@ -34,7 +31,7 @@ export function renderMail(
   subject: string,
   data: Record<string, unknown>,
 ): { subject: string; text: string; html: string } {
-  const it = { ...data, subject, appUrl: baseUrl(config), lang: config.APP_LOCALE.split('-')[0] }
+  const it = { ...data, subject, appUrl: publicBaseUrl(config), lang: config.APP_LOCALE.split('-')[0] }
   return {
     subject,
     text: `${textViews.render(`./${view}.txt.eta`, it).trimEnd()}\n`,
@@ -49,7 +46,7 @@ export function inviteMail(
   by: string,
   expiresAt: Date = new Date(Date.now() + 7 * 86_400_000),
 ): MailMessage {
-  const link = `${baseUrl(config)}/accept-invite?token=${encodeURIComponent(token)}`
+  const link = publicLink(config, '/accept-invite', { token })
   const parts = renderMail(config, 'invite', 'Your Lampwright account', {
     name: user.name,
     by,
@@ -67,7 +64,7 @@ export function passwordResetMail(
   token: string,
   expiresAt: Date,
 ): MailMessage {
-  const link = `${baseUrl(config)}/reset-password?token=${encodeURIComponent(token)}`
+  const link = publicLink(config, '/reset-password', { token })
   const parts = renderMail(config, 'password-reset', 'Reset your Lampwright password', {
     name: user.name,
     link,

@@ -1,8 +1,8 @@
 import { planners, queueReaders } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
-import { closeBody, mergeBody, refreshResult, snoozeBody } from '../../shared/schemas/queue'
+import { closeBody, mergeBody, refreshResult, snoozeBody, wakeResult } from '../../shared/schemas/queue'
 import { defineRoute, type RouteDef } from '../route-table'
-import { closeItem, mergeItems, snoozeItem } from '../services/queue/actions'
+import { closeItem, mergeItems, snoozeItem, wakeItem } from '../services/queue/actions'
 import { listQueuePage } from '../services/queue/list'
 import { queuePage, queuePageQuery } from '../../shared/schemas/queue-page'
 import { refreshQueue } from '../jobs/refresh-queue'
@@ -59,6 +59,27 @@ export const queueRoutes: RouteDef[] = [
         }),
       )
     },
+  }),
+  defineRoute({
+    method: 'post',
+    path: '/queue/:id/wake',
+    access: planners,
+    tag: 'queue',
+    summary: 'Wake a snoozed item early: it is open again now (409 if it is not snoozed)',
+    params: idParam,
+    response: wakeResult,
+    handler: ({ deps, params, user, req }) =>
+      audited(
+        deps.db,
+        (trx) => wakeItem(trx, params.id),
+        () => ({
+          userId: user.id,
+          action: 'wake',
+          entity: 'queue_item',
+          entityId: params.id,
+          requestId: String(req.id),
+        }),
+      ),
   }),
   defineRoute({
     method: 'post',

@@ -4,7 +4,8 @@ import { setTimeout as sleep } from 'node:timers/promises'
 import type { Db } from '../db'
 import { SettingError, type Config } from '../config'
 import type { Mailer } from '../mail/mailer'
-import { baseUrl, inviteMail } from '../mail/templates'
+import { inviteMail } from '../mail/templates'
+import { publicLink } from '../public-url'
 import { HttpError } from '../errors'
 import { demoAccountsSetting } from './demo-settings'
 import { acceptInvite, inviteUser } from './users'
@@ -66,7 +67,7 @@ export async function ensureFirstAdmin(
   if (password) return { ...base, link: null }
   // Sent after the commit; the link is printed too, as mail may not be set up yet.
   await mailer.send(inviteMail(config, made.user, made.token, 'Lampwright set-up'))
-  return { ...base, link: `${baseUrl(config)}/accept-invite?token=${encodeURIComponent(made.token)}` }
+  return { ...base, link: publicLink(config, '/accept-invite', { token: made.token }) }
 }
 
 /** The line start-up prints about the first admin, or null when there is nothing to say. */

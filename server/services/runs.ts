@@ -138,11 +138,15 @@ export async function publishRuns(
   body: {
     date: string
     runs: { crewId: number; itemIds: number[] }[]
+    pinnedItemIds?: number[]
     speedKmh?: number
     detourFactor?: number
   },
   ctx: { requestId?: string; owner?: JobOwner } = {},
 ) {
+  // Every stop is fixed in the order given so the saved run is timed as published; only the stops the
+  // supervisor pinned are saved pinned, so a later re-optimise may still move the others.
+  const supervisorPins = new Set(body.pinnedItemIds ?? [])
   const plan = await proposePlan(
     db,
     {
@@ -195,7 +199,7 @@ export async function publishRuns(
             departAt: s.depart,
             travelMinutes: s.travelMinutes,
             serviceMinutes: s.serviceMinutes,
-            pinned: true,
+            pinned: s.itemId !== null && supervisorPins.has(s.itemId),
           })),
         )
       }

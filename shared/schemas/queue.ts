@@ -101,4 +101,7 @@ export const closeBody = z.object({
   /** For a public-report item: what the reporter's status page says now. Fixed when not given. */
   reportState: z.enum(reportClosedStates).optional(),
 })
+/** A snoozed item woken early: open again now. */
+export const wakeResult = z.object({ id: z.number(), state: z.literal('open') })
+
 export const refreshResult = z.object({ opened: z.number(), open: z.number() })

@@ -93,6 +93,8 @@ export const publishBody = z.object({
     )
     .min(1)
     .max(20),
+  /** stops the supervisor pinned: saved pinned; the rest stay free for the next re-optimise */
+  pinnedItemIds: z.array(z.number().int().positive()).max(300).default([]),
   speedKmh: z.number().min(3).max(90).optional(),
   detourFactor: z.number().min(1).max(3).optional(),
 })

@@ -24,6 +24,8 @@ export const queueApi = {
   /** `until` is an ISO date-time with offset; the reason is required (3 characters or more). */
   snooze: (id: number, until: string, reason: string) =>
     http.post<void>(`/queue/${id}/snooze`, { until, reason }),
+  /** Opens a snoozed item again now, before its time. */
+  wake: (id: number) => http.post<{ id: number; state: 'open' }>(`/queue/${id}/wake`),
   /** Folds `ids` into `into`; the target keeps its place and counts the merged items. */
   merge: (into: number, ids: number[]) => http.post<void>('/queue/merge', { into, ids }),
   /** `reportState`, for a public-report item only: what the reporter's status page says now. */

@@ -92,3 +92,22 @@ describe('mail templates', () => {
     expect(invite.text).toContain('the link works until Wed 2 Dec, 17:45 (Europe/London time)')
   })
 })
+
+describe('links in e-mails', () => {
+  // README: PUBLIC_URL is the base of links in e-mails; a trailing slash or a blank value must not
+  // change that (RFC 3986 §3.3: "//accept-invite" would be an empty path segment).
+  it('start from PUBLIC_URL when it is set, whatever its trailing slash', () => {
+    const slash = loadConfig({ PUBLIC_URL: 'https://lamps.example/' })
+    const mail = inviteMail(slash, { name: 'Ada', email: 'ada@example.org', role: 'crew' }, 'tok-1', 'Admin')
+    expect(mail.text).toContain('https://lamps.example/accept-invite?token=tok-1')
+    expect(mail.html).toContain('https://lamps.example/accept-invite?token=tok-1')
+    const reset = passwordResetMail(slash, { name: 'Ada', email: 'ada@example.org' }, 'tok-2', new Date())
+    expect(reset.text).toContain('https://lamps.example/reset-password?token=tok-2')
+  })
+
+  it("use this server's own address only when PUBLIC_URL is not set", () => {
+    const own = loadConfig({ PORT: '4123', PUBLIC_URL: '' })
+    const mail = inviteMail(own, { name: 'Ada', email: 'ada@example.org', role: 'crew' }, 'tok-3', 'Admin')
+    expect(mail.text).toContain('http://localhost:4123/accept-invite?token=tok-3')
+  })
+})

@@ -1,6 +1,6 @@
-// What a supervisor does to queue items: snooze, merge duplicates, close without a visit. The routes
+// What a supervisor does to queue items: snooze, wake early, merge duplicates, close without a visit. The routes
 // run these inside audited(), so each change and its audit row commit together.
-import { badRequest, notFound } from '../../errors'
+import { badRequest, conflict, notFound } from '../../errors'
 import type { ReportClosedState } from '../../../shared/schemas/reports'
 import { ACTIVE, closeItems } from './items'
 import { markReportsInHand, settleReportsOfItems } from './report-states'
@@ -23,6 +23,15 @@ export async function snoozeItem(db: Db, id: number, until: Date, reason: string
   await db('queueItems').where({ id }).update({ state: 'snoozed', snoozedUntil: until, snoozeReason: reason })
   // A supervisor has looked at it: a reporter's status page says the report is in hand.
   await markReportsInHand(db, [id], now)
+}
+
+/** A supervisor wakes a snoozed item before its time: it is open again now (409 if it is not snoozed). */
+export async function wakeItem(db: Db, id: number) {
+  const item = await db('queueItems').where({ id }).first('id', 'state')
+  if (!item) throw notFound('Queue item')
+  if (item.state !== 'snoozed') throw conflict('not_snoozed', 'This item is not snoozed.')
+  await db('queueItems').where({ id }).update({ state: 'open', snoozedUntil: null, snoozeReason: null })
+  return { id, state: 'open' as const }
 }
 
 /** Snoozed items whose time has come are open again. */

@@ -8,6 +8,7 @@ import { config } from '../../config'
 import { scoreSql } from './score-sql'
 import { byRank } from '../../../shared/schemas/report-work'
 import { reportNotesForItems } from '../report-notes'
+import { STATE_KINDS, stringItemSummary } from './string-items'
 
 export interface QueueFilter {
   clientId?: number
@@ -141,7 +142,11 @@ async function toItems(db: Db, rows: any[], now: Date): Promise<QueueItem[]> {
       kind: r.kind,
       severity: r.severity,
       state: r.state,
-      summary: r.summary,
+      // A waiting state item reads the string's current count (the stored title is from when it opened).
+      summary:
+        r.stringId && r.state !== 'closed' && r.state !== 'merged' && STATE_KINDS.includes(r.kind)
+          ? stringItemSummary(r.kind, { ...r, name: r.stringName })
+          : r.summary,
       openedAt: iso(r.openedAt),
       dueBy: iso(r.dueBy),
       hoursLeft,

@@ -6,6 +6,7 @@ import { stringStatusKind, type QueueKind } from '../../../shared/schemas/queue'
 import type { StringStatus } from '../../../shared/schemas/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import type { Db } from '../../db'
+import { plural } from '../../../shared/number-format'
 
 export const STATE_KINDS = Object.values(stringStatusKind) as QueueKind[]
 const NEEDING = Object.keys(stringStatusKind) as StringStatus[]
@@ -55,13 +56,7 @@ export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: 
     : [...STATE_KINDS, 'forecast_dark', ...(visitId ? ['public_report' as const] : [])]
   const close = active.filter((i) => settled.includes(i.kind)).map((i) => i.id)
   if (!kind) return { archived: [], close, open: null }
-  // The summary says which rule fired: the lamps' voltage ratio, or the forecast's risk.
-  const summary =
-    kind === 'dark'
-      ? `${s.assetTag} ${s.name} is dark`
-      : s.replaceRule === 'risk' && s.riskNote
-        ? `${s.assetTag} ${s.name}: replace now, ${s.riskNote}`
-        : `${s.assetTag} ${s.name}: ${s.lampsOut} lamps out, replace now`
+  const summary = stringItemSummary(kind, s)
   const open: OpenItem = {
     kind,
     stringId: s.id,
@@ -72,6 +67,20 @@ export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: 
     summary,
   }
   return { archived: [], close, open }
+}
+
+/**
+ * A state item's title from the string as it is now; the queue list builds it again on every read, so
+ * the title never says "4 lamps out" beside a string that has 2. It says which rule fired: the lamps'
+ * voltage ratio, or the forecast's risk.
+ */
+export function stringItemSummary(
+  kind: QueueKind,
+  s: Pick<QueuedString, 'assetTag' | 'name' | 'lampsOut' | 'replaceRule' | 'riskNote'>,
+): string {
+  if (kind === 'dark') return `${s.assetTag} ${s.name} is dark`
+  if (s.replaceRule === 'risk' && s.riskNote) return `${s.assetTag} ${s.name}: replace now, ${s.riskNote}`
+  return `${s.assetTag} ${s.name}: ${plural(s.lampsOut, 'lamp')} out, replace now`
 }
 
 /** The open or snoozed state, forecast (and with a visit, public-report) items of these strings. */

@@ -1,27 +1,20 @@
 import type { EnergyClient, EnergyLine } from '../../api/energy'
-import { appTimeZone, formatDate } from '../../dates'
+import { appTimeZone, formatDate, formatFixed, formatMoney, formatNumber } from '../../dates'
 import { localClock } from '../../../shared/local-time'
 
-const gb = (digits: number) =>
-  new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })
-const whole = gb(0)
-const one = gb(1)
-const two = gb(2)
-
-/** Fewer decimals as numbers grow: 0.74, 11.9, 562. */
+/** One decimal under 100, whole above, with grouping marks: 0.7, 9.6, 11.9, 1,562. */
 export function amount(n: number): string {
-  const abs = Math.abs(n)
-  return (abs >= 100 ? whole : abs >= 10 ? one : two).format(n)
+  return formatFixed(n, Math.abs(n) >= 100 ? 0 : 1)
 }
-export const watts = (w: number) => whole.format(w)
+export const watts = (w: number) => formatNumber(w)
 export const kw = (w: number) => amount(w / 1000)
-export function pounds(n: number | null, exact = false): string {
-  if (n === null) return '—'
-  return `£${(exact || Math.abs(n) < 100 ? two : whole).format(n)}`
+/** Money at the app's one precision, pounds and pence: £42.61, £1,960.00. */
+export function pounds(n: number | null): string {
+  return n === null ? '—' : formatMoney(n)
 }
-const price = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 4 })
-export const tariff = (perKwh: number) => `£${price.format(perKwh)} per kWh`
-export const hours = (h: number) => `${Number.isInteger(h) ? h : one.format(h)} h`
+/** A unit price in pence, as tariffs are quoted: 24.5p per kWh. */
+export const tariff = (perKwh: number) => `${formatNumber(perKwh * 100, 2)}p per kWh`
+export const hours = (h: number) => `${formatNumber(h, 1)} h`
 
 const minutes = (hhmm: string) => {
   const [h, m] = hhmm.split(':').map(Number)

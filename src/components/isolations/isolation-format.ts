@@ -11,6 +11,7 @@ import {
   type ReviewFilter,
 } from '../../api/isolations'
 import { STEP_GAPS } from '../../../shared/isolation-timing'
+import { formatNumber } from '../../dates'
 
 export const REVIEW_FILTERS: { value: ReviewFilter; label: string }[] = [
   { value: 'pending', label: 'To review' },
@@ -80,11 +81,20 @@ export function stepRows(record: Pick<IsolationRecord, 'steps'>): StepRow[] {
       label: stepLabel[step],
       phase: (isolateSteps as readonly string[]).includes(step) ? 'before' : 'after',
       doneAt: done?.doneAt ?? null,
-      value: done?.value ?? null,
+      value: stepValueText(step, done?.value ?? null),
       gapSeconds,
       tooQuick,
     }
   })
+}
+
+/** What a step recorded, with its unit: the RCD test's trip time is typed in milliseconds ("24 ms"). */
+export function stepValueText(step: string, value: string | null): string | null {
+  if (value === null || value.trim() === '') return null
+  // Typed on the phone as "24" or "24 ms": the same words either way.
+  const ms = /^\s*(\d+(?:\.\d+)?)\s*(?:ms)?\s*$/i.exec(value)
+  if (step === 'rcd_test' && ms) return `tripped in ${formatNumber(Number(ms[1]), 1)} ms`
+  return value
 }
 
 /** "+4 s", "+12 min", "+1 h 5 min" after the step before. */
@@ -119,4 +129,11 @@ export function noteProblem(decision: ReviewDecision, note: string, serious: num
 export function noteLabel(decision: ReviewDecision, serious: number): string {
   if (decision === 'rejected') return 'Why is it rejected? (required)'
   return serious > 0 ? 'Why can it still be approved? (required)' : 'Note (optional)'
+}
+
+/** Under the note: who reads it and, when it is required, why it is. */
+export function noteHint(decision: ReviewDecision, serious: number): string {
+  if (decision === 'rejected') return 'Required: the crew is briefed from it. Their supervisor sees it too.'
+  if (serious > 0) return 'Required: a serious finding is only approved with a reason on record.'
+  return 'The crew and their supervisor see this note.'
 }

@@ -63,6 +63,11 @@ export function publishOrder(runs: CrewRun[]): { crewId: number; itemIds: number
   }))
 }
 
+/** The stops the supervisor pinned, saved pinned on publish (the others stay free to move). */
+export function pinnedItemIds(runs: CrewRun[]): number[] {
+  return pinsOf(runs).map((p) => p.itemId)
+}
+
 export function itemIdsOf(runs: CrewRun[], unassigned: { itemId: number }[] = []): number[] {
   return [...new Set([...publishOrder(runs).flatMap((r) => r.itemIds), ...unassigned.map((u) => u.itemId)])]
 }

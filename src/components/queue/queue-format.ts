@@ -1,4 +1,5 @@
 import type { QueueItem, QueueKind, QueueState } from '../../api/queue'
+import { formatNumber } from '../../dates'
 
 export interface QueueFilterModel {
   state: QueueState
@@ -38,7 +39,7 @@ export const STATE_FILTERS: { value: QueueState; label: string }[] = [
 
 function hours(h: number): string {
   const abs = Math.abs(h)
-  return abs < 10 ? abs.toFixed(1).replace(/\.0$/, '') : String(Math.round(abs))
+  return formatNumber(abs, abs < 10 ? 1 : 0)
 }
 
 /** "12 h left" or "overdue by 3.5 h": said in words, never by colour alone. */
@@ -47,7 +48,7 @@ export function dueText(item: Pick<QueueItem, 'hoursLeft' | 'overdue'>): string 
 }
 
 export function score(n: number): string {
-  return n.toFixed(1).replace(/\.0$/, '')
+  return formatNumber(n, 1)
 }
 
 /** Where the item is: site, then client, whichever are known. */

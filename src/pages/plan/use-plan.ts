@@ -8,6 +8,7 @@ import { useRequest } from '../../composables/use-request'
 import {
   itemIdsOf,
   moveStop,
+  pinnedItemIds,
   pinsOf,
   publishOrder,
   togglePin,
@@ -16,7 +17,7 @@ import {
 import { DEFAULT_TOP_N, idsFromQuery, topItems } from '../../components/plan/plan-items'
 import { retime, type TravelSettings } from '../../components/plan/run-timing'
 import { DEFAULT_DETOUR_FACTOR, DEFAULT_SPEED_KMH } from '../../../shared/routing/plan-model'
-import { addDays, formatDate, today } from '../../dates'
+import { addDays, formatDate, plural, today } from '../../dates'
 
 type Source = 'none' | 'proposal' | 'published'
 
@@ -143,9 +144,9 @@ export function usePlan() {
   function publish(): void {
     const stops = runs.value.reduce((n, r) => n + r.stops.length, 0)
     $q.dialog({
-      title: `Publish ${runs.value.length} run${runs.value.length === 1 ? '' : 's'} for ${formatDate(date.value, 'weekday')}?`,
+      title: `Publish ${plural(runs.value.length, 'run')} for ${formatDate(date.value, 'weekday')}?`,
       message:
-        `${stops} stops in the order shown. Every crew member gets the run by e-mail; ` +
+        `${plural(stops, 'stop')} in the order shown. Every crew member gets the run by e-mail; ` +
         'a crew whose run for this date was already published gets a “Changed” e-mail.',
       cancel: { flat: true, noCaps: true, label: 'Cancel' },
       ok: { color: 'primary', unelevated: true, noCaps: true, label: 'Publish' },
@@ -153,7 +154,12 @@ export function usePlan() {
     }).onOk(async () => {
       const mine = ++generation
       const result = await run('publish', () =>
-        runsApi.publish({ date: date.value, runs: publishOrder(runs.value), ...settings }),
+        runsApi.publish({
+          date: date.value,
+          runs: publishOrder(runs.value),
+          pinnedItemIds: pinnedItemIds(runs.value),
+          ...settings,
+        }),
       )
       if (result && mine === generation) {
         show(result, 'published')

@@ -6,6 +6,7 @@ import { QUEUE_PAGE_DEFAULT, queuePageApi } from '../../api/queue-page'
 import type { QueueFilterModel } from '../../components/queue/queue-format'
 import { useRequest } from '../../composables/use-request'
 import { queryFromQueueView, queueViewFromQuery } from './queue-url'
+import { formatNumber } from '../../dates'
 
 export function useQueueView() {
   const route = useRoute()
@@ -67,7 +68,7 @@ export function useQueueView() {
   const firstRank = computed(() => (page.value - 1) * pageSize + 1)
   const shownText = computed(() => {
     const last = Math.min(total.value, firstRank.value + items.value.length - 1)
-    return `Showing ${firstRank.value}–${last} of ${total.value.toLocaleString('en-GB')}`
+    return `Showing ${formatNumber(firstRank.value)}–${formatNumber(last)} of ${formatNumber(total.value)}`
   })
   return { filter, page, pageSize, list, items, total, pages, firstRank, shownText }
 }

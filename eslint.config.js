@@ -18,6 +18,7 @@ export default tseslint.config(
       '.data/**',
       '.test-data*/**',
       '.bench-data*/**',
+      '.bench-web*/**',
       '.cluster-data/**',
       'backups/**',
       'uploads/**',

@@ -41,9 +41,9 @@ describe('supervisor plans and publishes runs', () => {
     const totals = (await page.locator('.score-bar__total').allTextContents()).map(Number)
     expect(totals.length).toBeGreaterThanOrEqual(PICK)
     // Emergencies come first (a hazard outranks every routine item), then the score decides.
-    const severities = await page.locator('.queue-item').evaluateAll((els) =>
-      els.map((el) => el.getAttribute('data-severity')),
-    )
+    const severities = await page
+      .locator('.queue-item')
+      .evaluateAll((els) => els.map((el) => el.getAttribute('data-severity')))
     const rank = (i: number) => (severities[i] === 'emergency' ? 1000 : 0) + totals[i]
     for (let i = 1; i < totals.length; i++) expect(rank(i - 1)).toBeGreaterThanOrEqual(rank(i))
     const legend = await page.locator('.score-bar__legend').first().textContent()

@@ -7,6 +7,7 @@ import { VitePWA } from 'vite-plugin-pwa'
 import { splitIcons } from './scripts/vite/split-icons'
 import { precompress } from './scripts/vite/precompress'
 import { preloadFonts } from './scripts/vite/preload-fonts'
+import { chunkGroups } from './scripts/vite/chunk-groups'
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '3000'}`
 
@@ -109,7 +110,11 @@ export default defineConfig({
     precompress(),
   ],
   server: { port: 5173, proxy: { '/api': api, '/uploads': apiTarget } },
-  build: { outDir: 'dist', chunkSizeWarningLimit: 900 },
+  build: {
+    outDir: 'dist',
+    chunkSizeWarningLimit: 900,
+    rolldownOptions: { output: { codeSplitting: { groups: chunkGroups } } },
+  },
   test: {
     projects: [
       {

@@ -1,7 +1,6 @@
 import { LocalStorage } from 'quasar'
 
-/** How references look (shared/schemas/reports.ts refParam): LW- and five letters or digits. */
-export const REF_PATTERN = /^LW-[0-9A-Z]{5}$/
+export { REF_PATTERN } from '../../../shared/report-rules'
 
 /** Accepts what people type: lower case, spaces, a missing dash or prefix ("lw 7k3qd", "7K3QD"). */
 export function normaliseRef(typed: string): string {

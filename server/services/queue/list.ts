@@ -109,7 +109,9 @@ export async function listQueuePage(
   const rows = ids.length ? await selectItem(db, queueRows(db, { ...f, ids })) : []
   const at = new Map(ids.map((id, i) => [id, i]))
   rows.sort((a, b) => at.get(a.id)! - at.get(b.id)!)
-  return { items: await toItems(db, rows, now), total: Number(n) }
+  // SQL's score and score.ts's rounded one can differ in the last decimal: within the page the order
+  // follows the score people read (a stable sort, so SQL's order stands between equals).
+  return { items: (await toItems(db, rows, now)).sort(byRank), total: Number(n) }
 }
 
 export async function listQueue(db: Db, f: QueueFilter, now = new Date()): Promise<QueueItem[]> {

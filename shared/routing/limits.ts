@@ -8,6 +8,9 @@ export const MAX_STOPS_WITH_COORDINATES = 5000
 export const MAX_PLAN_CREWS = 50
 export const MAX_PLAN_ITEMS = 500
 
+/** How many of the highest-ranked open items the planning board ticks when nothing was chosen. */
+export const DEFAULT_TOP_N = 12
+
 /** Default search budget for `solveTour`; small instances stop earlier once the search stalls. */
 export const DEFAULT_TIME_LIMIT_MS = 1000
 

@@ -14,6 +14,8 @@ export interface SearchOptions {
   maxIterations?: number
   /** a feasible start: stops per vehicle, in order (the rest are inserted by regret) */
   initial?: readonly (readonly number[])[]
+  /** share of the budget for serving every stop with the vehicles given (eject.ts); 0 skips it */
+  reduceShare?: number
   /** current time in ms (tests and benches may pass a fake clock) */
   now?: () => number
 }
@@ -70,18 +72,22 @@ export function searchVrptw(m: VrptwModel, options: SearchOptions): SearchResult
   }
   repair(start, 2)
   localSearch(start)
-  if (start.unserved.length > 0) {
+  const share = options.reduceShare ?? REDUCE_SHARE
+  let current = start
+  if (start.unserved.length > 0 && share > 0) {
     const limit = options.maxIterations
-    emptyPool(start, {
-      deadline: began + REDUCE_SHARE * options.timeLimitMs,
+    const reduced = start.copy()
+    emptyPool(reduced, {
+      deadline: began + share * options.timeLimitMs,
       now,
       random,
-      maxSteps: limit === undefined ? undefined : limit * REDUCE_SHARE,
+      maxSteps: limit === undefined ? undefined : limit * share,
     })
-    localSearch(start)
+    localSearch(reduced)
+    // Ejection may end with heavier stops out than it began with (a day too full to serve all).
+    if (!better(keyOf(start), keyOf(reduced))) current = reduced
   }
-  let current = start
-  let best = start.copy()
+  let best = current.copy()
   let bestKey = keyOf(best)
   const penaltyUnit = penaltyScale(m)
   const score = (s: Solution) => s.distance() + penaltyUnit * s.penalty()

@@ -1,7 +1,6 @@
 import type { QueueItem } from '../../api/queue'
 
-/** How many of the highest-scored open items are offered ticked when nothing was chosen on the queue. */
-export const DEFAULT_TOP_N = 12
+export { DEFAULT_TOP_N } from '../../../shared/routing/limits'
 
 /** The first `n` items (already ranked by score) that have a place a crew can drive to. */
 export function topItems(items: QueueItem[], n: number): number[] {

@@ -25,7 +25,7 @@ const FORECAST_TIMEOUT_MS = 15_000
 const FORECAST_BATCH_TIMEOUT_MS = 60_000
 // Beyond the search's own time limit: checking a 1,000-stop matrix, neighbour lists, the answer.
 const TOUR_GRACE_MS = 3_000
-// The largest plan (50 crews, 500 items) takes about 6.5 s on one core (measured with npm run bench:plan's synthetic case).
+// The largest plan (50 crews, 500 items) takes about 6.5 s on one core (a synthetic plan of that size).
 const PLAN_TIMEOUT_MS = 30_000
 
 const fmt = (n: number) => n.toLocaleString('en-GB')

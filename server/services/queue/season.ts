@@ -6,7 +6,7 @@
 // An item closes when its string is installed or the site's last string is down. Run in the
 // transaction of the record that causes it, and in every refresh.
 import type { Db } from '../../db'
-import { closeItems, openItem, ACTIVE } from './items'
+import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import { endOfLocalDay, localDay } from '../../../shared/local-time'
 import { config } from '../../config'
 
@@ -46,63 +46,66 @@ export async function syncSeasonItems(db: Db, now = new Date(), siteIds?: number
   if (siteIds) sq.whereIn('si.id', siteIds)
   const sites: SiteRow[] = await sq
   const open = new Map(sites.map((s) => [s.siteId, s]))
+  // Strings in store one by one (each may need its installation); those up only counted per site.
   const strings = await db('strings')
     .whereNull('archivedAt')
-    .whereIn('seasonState', ['in_store', ...UP_STATES])
+    .where('seasonState', 'in_store')
     .modify((q) => {
       if (siteIds) q.whereIn('siteId', siteIds)
     })
     .select('id', 'assetTag', 'name', 'siteId', 'seasonState')
+  const upRows: { siteId: number; n: unknown }[] = await db('strings')
+    .whereNull('archivedAt')
+    .whereIn('seasonState', [...UP_STATES])
+    .modify((q) => {
+      if (siteIds) q.whereIn('siteId', siteIds)
+    })
+    .groupBy('siteId')
+    .select('siteId')
+    .count({ n: '*' })
   const wanted = new Set<string>()
-  const upBySite = new Map<number, number>()
+  const upBySite = new Map(upRows.filter((r) => open.has(r.siteId)).map((r) => [r.siteId, Number(r.n)]))
+  const items: OpenItem[] = []
+  // Working out a zone's today is slow (tens of microseconds): once per zone, not per string.
+  const todays = new Map<string, string>()
+  const todayIn = (zone: string) => todays.get(zone) ?? todays.set(zone, localDay(now, zone)).get(zone)!
   for (const s of strings) {
     const site = open.get(s.siteId)
     if (!site) continue
     const zone = site.timeZone || config.APP_TIME_ZONE
-    const today = localDay(now, zone)
-    if (s.seasonState !== 'in_store') {
-      upBySite.set(s.siteId, (upBySite.get(s.siteId) ?? 0) + 1)
-      continue
-    }
+    const today = todayIn(zone)
     if (!site.installFrom || today < site.installFrom) continue
     const subject = `string:${s.id}`
     wanted.add(`installation:${subject}`)
     const by = site.installTo ?? site.seasonStart
-    await openItem(
-      db,
-      {
-        kind: 'installation',
-        subject,
-        severity: 'standard',
-        stringId: s.id,
-        siteId: s.siteId,
-        clientId: site.clientId,
-        dueBy: by ? endOfLocalDay(by, zone) : undefined,
-        summary: `Install and commission ${s.assetTag} ${s.name}`,
-      },
-      now,
-    )
+    items.push({
+      kind: 'installation',
+      subject,
+      severity: 'standard',
+      stringId: s.id,
+      siteId: s.siteId,
+      clientId: site.clientId,
+      dueBy: by ? endOfLocalDay(by, zone) : undefined,
+      summary: `Install and commission ${s.assetTag} ${s.name}`,
+    })
   }
   for (const [siteId, up] of upBySite) {
     const site = open.get(siteId)!
     const zone = site.timeZone || config.APP_TIME_ZONE
-    if (!site.takeDownFrom || localDay(now, zone) < site.takeDownFrom) continue
+    if (!site.takeDownFrom || todayIn(zone) < site.takeDownFrom) continue
     const subject = `site:${siteId}`
     wanted.add(`take_down:${subject}`)
-    await openItem(
-      db,
-      {
-        kind: 'take_down',
-        subject,
-        severity: 'standard',
-        siteId,
-        clientId: site.clientId,
-        dueBy: site.takeDownTo ? endOfLocalDay(site.takeDownTo, zone) : undefined,
-        summary: `Take down ${up} string${up === 1 ? '' : 's'} at ${site.siteName}`,
-      },
-      now,
-    )
+    items.push({
+      kind: 'take_down',
+      subject,
+      severity: 'standard',
+      siteId,
+      clientId: site.clientId,
+      dueBy: site.takeDownTo ? endOfLocalDay(site.takeDownTo, zone) : undefined,
+      summary: `Take down ${up} string${up === 1 ? '' : 's'} at ${site.siteName}`,
+    })
   }
+  await openItems(db, items, now)
   const active = (await db('queueItems as q')
     .leftJoin('strings as s', 's.id', 'q.stringId')
     .whereIn('q.kind', SEASON_KINDS)

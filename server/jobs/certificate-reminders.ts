@@ -10,7 +10,7 @@ import type { Config } from '../config'
 import { localDay } from '../../shared/local-time'
 import { reminderStage, type ReminderStage } from '../../shared/schemas/certificates'
 import { daysUntil, latestCertificates } from '../services/queue/certificates'
-import { subjectLabels, subjectPlaces } from '../services/certificate-subjects'
+import { subjectIds, subjectLabels, subjectPlaces } from '../services/certificate-subjects'
 import { clientZones } from '../services/zones'
 import { addNotices } from '../services/notices'
 import { reminderMail, reminderTitle, type Reminder } from './certificate-reminders-mail'
@@ -18,7 +18,13 @@ import { reminderMail, reminderTitle, type Reminder } from './certificate-remind
 /** The reminders that have come due at `now` and were not sent before. */
 export async function dueReminders(db: Db, config: Pick<Config, 'APP_TIME_ZONE'>, now: Date) {
   const certs = (await latestCertificates(db)).filter((c) => c.result !== 'fail' && c.nextDue)
-  const [places, zones, labels] = await Promise.all([subjectPlaces(db), clientZones(db), subjectLabels(db)])
+  // Only the subjects of these records are looked up, not every string of the estate.
+  const only = subjectIds(certs)
+  const [places, zones, labels] = await Promise.all([
+    subjectPlaces(db, only),
+    clientZones(db),
+    subjectLabels(db, only),
+  ])
   const sent = new Set(
     (await db('certificateReminders').select('certificateId', 'stage')).map(
       (r) => `${r.certificateId}:${r.stage}`,

@@ -1,3 +1,4 @@
+import { keyedAnswer } from './keyed-answer'
 import { idParam } from '../../shared/schemas/common'
 import {
   emergencyLog,
@@ -38,9 +39,7 @@ export const emergencyLogRoutes: RouteDef[] = [
     status: 201,
     handler: async ({ deps, req, res, params, body, user, idempotencyKey }) => {
       const by = { id: user.id, requestId: String(req.id) }
-      const { created, result } = await logEmergency(deps.db, params.id, by, body, idempotencyKey)
-      if (!created) res.status(200)
-      return result
+      return keyedAnswer(res, logEmergency(deps.db, params.id, by, body, idempotencyKey))
     },
   }),
   defineRoute({

@@ -1,3 +1,4 @@
+import { keyedAnswer } from './keyed-answer'
 import { everyone, fieldWorkers, office } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import {
@@ -33,11 +34,8 @@ export const seasonRoutes: RouteDef[] = [
     body: commissioningBody,
     response: commissioningResult,
     status: 201,
-    handler: async ({ deps, res, params, body, user, idempotencyKey }) => {
-      const { created, result } = await recordCommissioning(deps.db, user, idempotencyKey, params.id, body)
-      if (!created) res.status(200)
-      return result
-    },
+    handler: ({ deps, res, params, body, user, idempotencyKey }) =>
+      keyedAnswer(res, recordCommissioning(deps.db, user, idempotencyKey, params.id, body)),
   }),
   defineRoute({
     method: 'post',
@@ -50,11 +48,8 @@ export const seasonRoutes: RouteDef[] = [
     body: storeInspectionBody,
     response: commissioningResult,
     status: 201,
-    handler: async ({ deps, res, params, body, user, idempotencyKey }) => {
-      const { created, result } = await recordStoreInspection(deps.db, user, idempotencyKey, params.id, body)
-      if (!created) res.status(200)
-      return result
-    },
+    handler: ({ deps, res, params, body, user, idempotencyKey }) =>
+      keyedAnswer(res, recordStoreInspection(deps.db, user, idempotencyKey, params.id, body)),
   }),
   defineRoute({
     method: 'post',
@@ -67,11 +62,8 @@ export const seasonRoutes: RouteDef[] = [
     body: takeDownBody,
     response: takeDownResult,
     status: 201,
-    handler: async ({ deps, res, params, body, user, idempotencyKey }) => {
-      const { created, result } = await recordTakeDown(deps.db, user, idempotencyKey, params.id, body)
-      if (!created) res.status(200)
-      return result
-    },
+    handler: ({ deps, res, params, body, user, idempotencyKey }) =>
+      keyedAnswer(res, recordTakeDown(deps.db, user, idempotencyKey, params.id, body)),
   }),
   defineRoute({
     method: 'put',

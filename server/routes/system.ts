@@ -8,6 +8,7 @@ import { getMail, listMail } from '../services/mail'
 import { basemapSettings, tileSettings } from '../services/tiles'
 import { demoAccountsSetting, demoBasemapSetting } from '../services/demo-settings'
 import { basemap } from '../../shared/schemas/system'
+import { publicBaseUrl } from '../public-url'
 
 // The outbox shows every message the demo sent, invitation links included: only for the one role that
 // could create those accounts anyway, only in demo mode, and never when mail goes to a real server.
@@ -58,6 +59,7 @@ export const systemRoutes: RouteDef[] = [
         basemap: basemapSettings(deps.config),
         timeZone: deps.config.APP_TIME_ZONE,
         locale: deps.config.APP_LOCALE,
+        publicUrl: deps.config.PUBLIC_URL?.trim() ? publicBaseUrl(deps.config) : null,
       }
     },
   }),

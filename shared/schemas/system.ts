@@ -19,6 +19,8 @@ export const clientConfig = z.object({
   /** The app's IANA zone and BCP 47 locale: every date and number the client shows follows them. */
   timeZone: z.string(),
   locale: z.string(),
+  /** PUBLIC_URL without a trailing slash when set: printed links (QR labels) use it; null, the page's own. */
+  publicUrl: z.string().nullable(),
 })
 export const mailList = z.object({
   items: z.array(z.object({ id: z.number(), to: z.string(), subject: z.string(), createdAt: z.string() })),

@@ -15,6 +15,7 @@ const FALLBACK: AppConfig = {
   basemap: { kind: 'none', url: null },
   timeZone: DEFAULT_TIME_ZONE,
   locale: DEFAULT_LOCALE,
+  publicUrl: null,
 }
 
 // Public server settings (demo mode, map tiles, mail fake), fetched once per page load.
@@ -25,6 +26,8 @@ export const useAppConfigStore = defineStore('app-config', () => {
 
   const appName = computed(() => config.value.appName || 'Lampwright')
   const showMail = computed(() => config.value.demoMode && config.value.mailOutbox)
+  /** The base of links meant to leave this screen (printed labels): PUBLIC_URL, else this page's origin. */
+  const linkBase = computed(() => config.value.publicUrl ?? window.location.origin)
 
   async function fetchConfig(): Promise<void> {
     try {
@@ -44,5 +47,5 @@ export const useAppConfigStore = defineStore('app-config', () => {
     return pending
   }
 
-  return { config, loaded, appName, showMail, ensureLoaded }
+  return { config, loaded, appName, showMail, linkBase, ensureLoaded }
 })

@@ -157,3 +157,15 @@ describe('demo data (demo mode only, read from what the seed stored)', () => {
     }
   })
 })
+
+describe('the base of printed links (README, Settings: PUBLIC_URL)', () => {
+  it('is PUBLIC_URL without its trailing slash when set, and absent otherwise', async () => {
+    const pub = await makeTestApp({ PUBLIC_URL: 'https://lights.example.org/' })
+    try {
+      expect((await request(pub.app).get('/api/v1/config')).body.publicUrl).toBe('https://lights.example.org')
+      expect((await request(t.app).get('/api/v1/config')).body.publicUrl).toBeNull()
+    } finally {
+      await pub.close()
+    }
+  })
+})

@@ -269,6 +269,45 @@ describe('estate chain', () => {
     expect(all.body.total).toBe(1)
     expect(all.body.items[0].id).toBe(ids.string)
   })
+
+  // Data rule (developers' guide): archive instead of deleting, and leave nothing live under a record
+  // no list shows. Common practice, no source: a register keeps every asset under a live parent.
+  it('refuses to archive a record live rows still name, and archives it once they are gone', async () => {
+    const site = await post('manager', 'sites', {
+      clientId: ids.client,
+      name: `Yard ${run}`,
+      kind: 'street',
+      lat: 51.5,
+      lng: -0.12,
+    })
+    expect(site.status).toBe(201)
+    const s = await post('manager', 'strings', {
+      assetTag: `T-${run}-Y`,
+      name: 'Tree wrap in the yard',
+      typeId: ids.type,
+      siteId: site.body.id,
+      geometry: 'point',
+      lat: 51.5,
+      lng: -0.12,
+      mountingHeightM: 3,
+    })
+    expect(s.status).toBe(201)
+    const refused = await request(t.app)
+      .delete(`/api/v1/sites/${site.body.id}`)
+      .set('Authorization', await as('manager'))
+    expect([refused.status, refused.body.error.code]).toEqual([409, 'in_use'])
+    expect(refused.body.error.message).toContain('1 live string')
+    expect((await t.db('sites').where({ id: site.body.id }).first('archivedAt')).archivedAt).toBeNull()
+
+    await request(t.app)
+      .delete(`/api/v1/strings/${s.body.id}`)
+      .set('Authorization', await as('manager'))
+    const done = await request(t.app)
+      .delete(`/api/v1/sites/${site.body.id}`)
+      .set('Authorization', await as('manager'))
+    expect(done.status).toBe(200)
+    expect(done.body.archivedAt).not.toBeNull()
+  })
 })
 
 describe('crew membership', () => {

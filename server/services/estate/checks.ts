@@ -3,6 +3,7 @@
 import type { Db } from '../../db'
 import { badRequest, conflict, HttpError } from '../../errors'
 import type { KindDef } from './kinds'
+import { plural } from '../../../shared/number-format'
 
 const field = (name: string, message: string) => ({ fields: [{ path: `body.${name}`, message }] })
 
@@ -19,6 +20,28 @@ export async function checkRefs(db: Db, def: KindDef, changes: Record<string, un
         field(name, row ? 'That record is archived.' : 'No such record.'),
       )
   }
+}
+
+/**
+ * A row that live rows of another kind still name (a site's strings, a string type's strings, a crew's
+ * platform) stays until they are archived or moved: archiving it would leave them on the map and in the
+ * queue under a record no list shows (409 in_use, with the counts).
+ */
+export async function checkNotInUse(db: Db, def: KindDef, id: number, all: KindDef[]) {
+  const users: string[] = []
+  for (const other of all)
+    for (const [name, table] of Object.entries(other.refs)) {
+      if (table !== def.table) continue
+      const row = await db(other.table).where(name, id).whereNull('archivedAt').count({ n: '*' }).first()
+      const n = Number(row?.n ?? 0)
+      if (n) users.push(plural(n, `live ${other.label.toLowerCase()}`))
+    }
+  if (users.length)
+    throw conflict(
+      'in_use',
+      `This ${def.label.toLowerCase()} is still used by ${users.join(' and ')}: archive or move them first.`,
+      { inUse: users },
+    )
 }
 
 /** Unique fields must not clash with another row (archived rows too: their history keeps the tag). */

@@ -4,8 +4,15 @@ import type { Db } from '../../db'
 import { conflict, notFound } from '../../errors'
 import type { Role } from '../../../shared/roles'
 import { audit } from '../audit'
-import type { KindDef } from './kinds'
-import { checkGeometry, checkRefs, checkStringType, checkUnique, duplicateFromDb } from './checks'
+import { kindDefs, type KindDef } from './kinds'
+import {
+  checkGeometry,
+  checkNotInUse,
+  checkRefs,
+  checkStringType,
+  checkUnique,
+  duplicateFromDb,
+} from './checks'
 
 export interface Actor {
   userId: number
@@ -136,6 +143,7 @@ export function archiveKind(db: Db, def: KindDef, id: number, by: Actor) {
     if (!current) throw notFound(def.label)
     const before = await withChildren(trx, def, current)
     if (current.archivedAt) return before
+    await checkNotInUse(trx, def, id, kindDefs)
     const now = new Date()
     const extra = 'active' in current ? { active: false } : {}
     await trx(def.table)

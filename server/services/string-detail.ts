@@ -3,7 +3,7 @@ import { notFound } from '../errors'
 import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
-import { loadType } from './strings'
+import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
 import { exposureNow, stringAssessment, stringForecastRequest } from './string-engine'
 import { cachedForecast } from './forecast-cache'
 import { iso, isoOrNull } from '../../shared/iso-time'
@@ -17,11 +17,16 @@ const parseLine = (v: unknown) =>
 
 /**
  * The string's site and client, circuit (with its supply point) and structure: one row, one statement
- * (the circuit and structure columns are null when the string has none).
+ * (the circuit and structure columns are null when the string has none); and its type, kept per
+ * process under the stamp read in that row (type-cache.ts).
  */
-async function placeOf(db: Db, s: { siteId: number; circuitId: number | null; structureId: number | null }) {
+async function placeOf(
+  db: Db,
+  s: { siteId: number; typeId: number; circuitId: number | null; structureId: number | null },
+) {
   const r = await db('sites as si')
     .join('clients as c', 'c.id', 'si.clientId')
+    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
     .leftJoin('circuits as ci', 'ci.id', db.raw('?', [s.circuitId]))
     .leftJoin('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
     .leftJoin('structures as x', 'x.id', db.raw('?', [s.structureId]))
@@ -47,6 +52,7 @@ async function placeOf(db: Db, s: { siteId: number; circuitId: number | null; st
       'x.kind as structureKind',
       'x.ref as structureRef',
       'x.approvedLoad',
+      ...typeStampColumns('st'),
     )
   if (!r) throw notFound('Site')
   const circuit =
@@ -71,15 +77,14 @@ async function placeOf(db: Db, s: { siteId: number; circuitId: number | null; st
           ref: r.structureRef,
           approvedLoad: r.approvedLoad ?? null,
         }
-  return { site: r, circuit, structure }
+  return { site: r, circuit, structure, type: await typeOf(db, r as TypeStamp) }
 }
 
 /** The string page; `row` is the strings row as read (the estate's editable fields come from it). */
 export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
   const s = await db('strings').where({ id }).first()
   if (!s) throw notFound('String')
-  const type = await loadType(db, s.typeId)
-  const { site, circuit, structure } = await placeOf(db, s)
+  const { site, circuit, structure, type } = await placeOf(db, s)
   const certificates = await db('certificates')
     .where((w) => {
       w.where({ subjectType: 'string', subjectId: id })

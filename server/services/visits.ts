@@ -3,7 +3,7 @@ import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
 import { conditionOf, shuntedLampCount, stateColumns, stringStatus } from '../../shared/string-status'
 import { applyVisit, brightLampsError, countErrors, isRelamping, lampTotal } from '../../shared/visit-rules'
-import { loadType } from './strings'
+import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { exposureColumns, type StringRecord } from './string-engine'
 import { requireIsolatedFor } from './isolations'
@@ -18,17 +18,24 @@ const invalid = (field: string, message: string) =>
 
 /**
  * What a send needs besides the string, in one statement: the first send's visit under this key (if
- * any), the string's site and client, and its active queue items. The first plain read of the
+ * any), the string's site and client, its active queue items and its type's stamp (type-cache.ts). The first plain read of the
  * transaction, made after the string's lock, so its snapshot holds whatever a first send committed.
  */
 async function visitContext(db: Db, key: string, s: StringRow) {
   const r = await db('sites as si')
     .join('clients as c', 'c.id', 'si.clientId')
+    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
     .leftJoin('visits as v', 'v.idempotencyKey', db.raw('?', [key]))
     .where('si.id', s.siteId)
-    .first('si.clientId', 'c.switchOn', 'c.switchOff', 'v.id as visitId', 'v.brightLamps', {
-      items: activeItemsColumn(db, s.id, true),
-    })
+    .first(
+      'si.clientId',
+      'c.switchOn',
+      'c.switchOff',
+      'v.id as visitId',
+      'v.brightLamps',
+      ...typeStampColumns('st'),
+      { items: activeItemsColumn(db, s.id, true) },
+    )
   if (!r) throw notFound('Site')
   return {
     earlier:
@@ -39,6 +46,7 @@ async function visitContext(db: Db, key: string, s: StringRow) {
       switchOff: r.switchOff as string,
     },
     items: activeItemsOf(s.id, r.items),
+    typeStamp: r as TypeStamp,
   }
 }
 
@@ -93,9 +101,9 @@ async function insertVisit(
   key: string,
   body: VisitBody,
   s: StringRow,
-  { site, items }: VisitContext,
+  { site, items, typeStamp }: VisitContext,
 ) {
-  const type = await loadType(trx, s.typeId)
+  const type = await typeOf(trx, typeStamp)
   const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
   if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
   if (counts.replaced) throw invalid('replaced', counts.replaced)

@@ -54,11 +54,28 @@ describe('the forecast cache', () => {
   })
 
   it('gives two strings in the same state one simulation and the same forecast', async () => {
-    // Another string made the same as this one in every forecast input (type, condition, lamp ages,
-    // site and so schedule); only its id, tag and place differ.
+    // Another string of the type made the same as this one in every forecast input (condition, lamp
+    // ages, site and so schedule) and so in its state too; only its id, tag and place differ.
     const s = await t.db('strings').where({ id: stringId }).first()
-    const other = await t.db('strings').whereNot({ id: stringId }).orderBy('id').first('id')
-    const same = ['typeId', 'siteId', 'lampsOut', 'fuseFailed', 'dark', 'isolated', 'lampAgeHours']
+    const other = await t
+      .db('strings')
+      .where({ typeId: s.typeId })
+      .whereNot({ id: stringId })
+      .orderBy('id')
+      .first('id')
+    const same = [
+      'siteId',
+      'lampsOut',
+      'fuseFailed',
+      'dark',
+      'isolated',
+      'lampAgeHours',
+      'status',
+      'replaceNow',
+      'replaceRule',
+      'riskNote',
+      'maxRatio',
+    ]
     await t
       .db('strings')
       .where({ id: other.id })

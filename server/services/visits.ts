@@ -18,8 +18,9 @@ const invalid = (field: string, message: string) =>
 
 /**
  * What a send needs besides the string, in one statement: the first send's visit under this key (if
- * any), the string's site and client, its active queue items and its type's stamp (type-cache.ts). The first plain read of the
- * transaction, made after the string's lock, so its snapshot holds whatever a first send committed.
+ * any), the string's site and client, its active queue items and its type's stamp (type-cache.ts).
+ * The transaction's first plain read, made after the string's lock, so its snapshot holds whatever a
+ * first send committed.
  */
 async function visitContext(db: Db, key: string, s: StringRow) {
   const r = await db('sites as si')

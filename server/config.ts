@@ -97,6 +97,8 @@ const schema = z.object({
   S3_URL: unsetWhenEmpty(z.string().url()),
   UPLOAD_MAX_MB: z.coerce.number().positive().default(12),
   LOG_LEVEL: z.string().default('info'),
+  /** Log lines to this file (appended) instead of stdout; read by server/logger.ts at start. */
+  LOG_FILE: unsetWhenEmpty(z.string()),
   /** API processes npm start runs (node:cluster); unset = one per core. 1 = a single process. */
   WORKERS: z.coerce.number().int().min(1).max(64).optional(),
   /** Threads for forecasts, tour search and run planning; unset = one fewer than the cores, at least 1. */

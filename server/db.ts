@@ -5,8 +5,22 @@ import { fileURLToPath } from 'node:url'
 
 const root = fileURLToPath(new URL('..', import.meta.url))
 
-const toSnake = (s: string): string => s.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`)
-const toCamel = (s: string): string => s.replace(/_([a-z0-9])/g, (_m, c: string) => c.toUpperCase())
+// Every identifier and every row key of every query goes through these: the names are the schema's
+// (a few hundred), so each is converted once per process rather than by a regular expression each time.
+const NAMES_KEPT = 10_000
+function remembered(convert: (s: string) => string): (s: string) => string {
+  const seen = new Map<string, string>()
+  return (s) => {
+    let out = seen.get(s)
+    if (out === undefined) {
+      out = convert(s)
+      if (seen.size < NAMES_KEPT) seen.set(s, out)
+    }
+    return out
+  }
+}
+const toSnake = remembered((s) => s.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`))
+const toCamel = remembered((s) => s.replace(/_([a-z0-9])/g, (_m, c: string) => c.toUpperCase()))
 
 function isPlain(v: unknown): v is Record<string, unknown> {
   if (v === null || typeof v !== 'object') return false
@@ -17,7 +31,7 @@ function isPlain(v: unknown): v is Record<string, unknown> {
 function camelRow(row: unknown): unknown {
   if (!isPlain(row)) return row
   const out: Record<string, unknown> = {}
-  for (const [k, v] of Object.entries(row)) out[toCamel(k)] = v
+  for (const k in row) out[toCamel(k)] = row[k]
   return out
 }
 

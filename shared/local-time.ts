@@ -14,9 +14,29 @@ export const DEFAULT_LOCALE = 'en-GB'
 
 const HOUR = 3_600_000
 
+// One formatter per zone, made once: dayjs's tz() makes a new one on each call (a third of a
+// millisecond), and the string page asks for the local day on every read.
+const dayFormats = new Map<string, Intl.DateTimeFormat>()
+
+function dayFormat(zone: string): Intl.DateTimeFormat {
+  let f = dayFormats.get(zone)
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-US', {
+      timeZone: zone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    })
+    dayFormats.set(zone, f)
+  }
+  return f
+}
+
 /** The calendar day (YYYY-MM-DD) it is in `zone` at `at`. */
 export function localDay(at: Date | number, zone: string): string {
-  return dayjs(at).tz(zone).format('YYYY-MM-DD')
+  const parts: Record<string, string> = {}
+  for (const p of dayFormat(zone).formatToParts(at)) parts[p.type] = p.value
+  return `${parts.year}-${parts.month}-${parts.day}`
 }
 
 /** The wall-clock time (HH:mm) in `zone` at `at`. */

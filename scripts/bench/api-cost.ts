@@ -3,6 +3,8 @@
 // per request of this process (app and client together; the health route's row is the floor) and
 // answer bytes. The app runs in this process over the bench database (scripts/bench/large-estate.ts:
 // the demo town tiled to 20,000 strings) with the queue items every dark or replace-now string needs.
+// Requests are logged as in production, to requests.log in the bench's data folder.
+import './file-log'
 import { randomUUID } from 'node:crypto'
 import type { Knex } from 'knex'
 import { loadavg } from 'node:os'

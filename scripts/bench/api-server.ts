@@ -45,6 +45,9 @@ export async function startBenchServer(db: BenchDatabase, workers?: string): Pro
       DEMO_MODE: 'true',
       DATA_DIR: join(dir, 'app'),
       UPLOAD_DIR: join(dir, 'uploads'),
+      // Every request logged as in production (run-script's default is warn), to a file, not the pipe.
+      LOG_LEVEL: 'info',
+      LOG_FILE: join(dir, 'requests.log'),
       ...(workers ? { WORKERS: workers } : {}),
     },
     ['--api-only'],

@@ -8,7 +8,7 @@ import { loadType, type StringType } from '../services/strings'
 import { CURVE_VERSION } from './forecast-curve'
 
 /** Bump when the forecast job's own settings change (trials, what it stores). */
-const JOB_VERSION = 'job-400'
+const JOB_VERSION = 'job-400-one-seed'
 
 const sha1 = (text: string) => createHash('sha1').update(text).digest('hex')
 

@@ -1,4 +1,5 @@
 import type { RequestHandler } from 'express'
+import { createSecretKey } from 'node:crypto'
 import jwt from 'jsonwebtoken'
 import type { AppDeps } from '../deps'
 import { findActiveUser } from '../services/users'
@@ -16,12 +17,15 @@ function tokenFrom(header: string | undefined, cookie: string | undefined): stri
  * it). Any other token is ignored, so protected routes answer 401 unauthenticated.
  */
 export function authenticate(deps: AppDeps): RequestHandler {
+  // The secret as a key object, made once: given the text, jsonwebtoken first tries it as a PEM public
+  // key on every request and fails (about 0.7 ms of CPU a request) before making this same key.
+  const key = createSecretKey(Buffer.from(deps.jwtSecret))
   return async (req, _res, next) => {
     const token = tokenFrom(req.headers.authorization, req.cookies?.[SESSION_COOKIE])
     if (!token) return next()
     let payload: jwt.JwtPayload
     try {
-      payload = jwt.verify(token, deps.jwtSecret, { algorithms: ['HS256'] }) as jwt.JwtPayload
+      payload = jwt.verify(token, key, { algorithms: ['HS256'] }) as jwt.JwtPayload
     } catch {
       return next()
     }

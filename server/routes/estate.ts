@@ -16,6 +16,7 @@ import { badRequest, forbidden } from '../errors'
 import { kindDefs, type KindDef } from '../services/estate/kinds'
 import { crewCandidates } from '../services/crew-membership'
 import { archiveKind, createKind, getOne, listKind, updateKind, type Actor } from '../services/estate/crud'
+import { READ_ROW } from './estate-row'
 
 const actor = (ctx: Ctx): Actor => ({
   userId: ctx.user.id,
@@ -57,7 +58,7 @@ function kindRoutes(def: KindDef): RouteDef[] {
       summary: `One ${def.label.toLowerCase()} with its version`,
       params: idParam,
       response: row,
-      handler: ({ deps, params }) => getOne(deps.db, def, params.id),
+      handler: ({ deps, params, res }) => getOne(deps.db, def, params.id, res.locals[READ_ROW]),
     }),
     defineRoute({
       method: 'patch',

@@ -10,7 +10,8 @@ import {
 } from '../../shared/schemas/strings'
 import { defineRoute, type RouteDef } from '../route-table'
 import { findByTag, listForMap } from '../services/strings'
-import { stringDetail as loadDetail } from '../services/string-detail'
+import { stringDetailAndRow } from '../services/string-detail'
+import { READ_ROW } from './estate-row'
 import { circuitLoad } from '../services/circuit-load'
 import { mapView as loadMapView } from '../services/map-view'
 import { mapView, mapViewQuery } from '../../shared/schemas/map-view'
@@ -55,7 +56,12 @@ export const stringRoutes: RouteDef[] = [
     summary: 'One string with its assessment, forecast and history',
     params: idParam,
     response: stringDetail,
-    handler: ({ deps, params }) => loadDetail(deps.db, params.id),
+    handler: async ({ deps, params, res }) => {
+      const { detail, row } = await stringDetailAndRow(deps.db, params.id)
+      // The estate's editable fields (routes/estate.ts adds them) come from this same row.
+      res.locals[READ_ROW] = row
+      return detail
+    },
   }),
   defineRoute({
     method: 'get',

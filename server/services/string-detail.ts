@@ -3,22 +3,33 @@ import { notFound } from '../errors'
 import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
-import { loadType } from './strings'
+import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
 import { exposureNow, stringAssessment, stringForecastRequest } from './string-engine'
 import { cachedForecast } from './forecast-cache'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
 import { config } from '../config'
 
+const idList = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : (v ?? [])) as number[]
+
 const parseLine = (v: unknown) =>
   (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
 
-export async function stringDetail(db: Db, id: number, now = new Date()): Promise<StringDetail> {
-  const s = await db('strings').where({ id }).first()
-  if (!s) throw notFound('String')
-  const type = await loadType(db, s.typeId)
-  const site = await db('sites as si')
+/**
+ * The string's site and client, circuit (with its supply point) and structure: one row, one statement
+ * (the circuit and structure columns are null when the string has none); and its type, kept per
+ * process under the stamp read in that row (type-cache.ts).
+ */
+async function placeOf(
+  db: Db,
+  s: { siteId: number; typeId: number; circuitId: number | null; structureId: number | null },
+) {
+  const r = await db('sites as si')
     .join('clients as c', 'c.id', 'si.clientId')
+    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
+    .leftJoin('circuits as ci', 'ci.id', db.raw('?', [s.circuitId]))
+    .leftJoin('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
+    .leftJoin('structures as x', 'x.id', db.raw('?', [s.structureId]))
     .where('si.id', s.siteId)
     .first(
       'si.id',
@@ -29,25 +40,51 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'c.switchOn',
       'c.switchOff',
       'c.timeZone',
+      'ci.id as circuitId',
+      'ci.ref as circuitRef',
+      'ci.breakerAmps',
+      'ci.breakerCurve',
+      'ci.rcdMa',
+      'ci.supplyVolts',
+      'sp.name as supplyPoint',
+      'sp.ref as supplyPointRef',
+      'x.id as structureId',
+      'x.kind as structureKind',
+      'x.ref as structureRef',
+      'x.approvedLoad',
+      ...typeStampColumns('st'),
     )
-  const circuit = s.circuitId
-    ? await db('circuits as ci')
-        .join('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
-        .where('ci.id', s.circuitId)
-        .first(
-          'ci.id',
-          'ci.ref',
-          'ci.breakerAmps',
-          'ci.breakerCurve',
-          'ci.rcdMa',
-          'ci.supplyVolts',
-          'sp.name as supplyPoint',
-          'sp.ref as supplyPointRef',
-        )
-    : null
-  const structure = s.structureId
-    ? await db('structures').where({ id: s.structureId }).first('id', 'kind', 'ref', 'approvedLoad')
-    : null
+  if (!r) throw notFound('Site')
+  const circuit =
+    r.circuitId == null
+      ? null
+      : {
+          id: r.circuitId as number,
+          ref: r.circuitRef,
+          breakerAmps: r.breakerAmps,
+          breakerCurve: r.breakerCurve,
+          rcdMa: r.rcdMa ?? null,
+          supplyVolts: r.supplyVolts,
+          supplyPoint: r.supplyPoint,
+          supplyPointRef: r.supplyPointRef,
+        }
+  const structure =
+    r.structureId == null
+      ? null
+      : {
+          id: r.structureId as number,
+          kind: r.structureKind,
+          ref: r.structureRef,
+          approvedLoad: r.approvedLoad ?? null,
+        }
+  return { site: r, circuit, structure, type: await typeOf(db, r as TypeStamp) }
+}
+
+/** The string page; `row` is the strings row as read (the estate's editable fields come from it). */
+export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
+  const s = await db('strings').where({ id }).first()
+  if (!s) throw notFound('String')
+  const { site, circuit, structure, type } = await placeOf(db, s)
   const certificates = await db('certificates')
     .where((w) => {
       w.where({ subjectType: 'string', subjectId: id })
@@ -56,6 +93,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     })
     .orderBy('doneOn', 'desc')
     .select('id', 'kind', 'reference', 'doneOn', 'nextDue', 'result')
+  // Each visit's photos in the same statement, as a JSON list of ids.
   const visits = await db('visits as v')
     .join('users as u', 'u.id', 'v.userId')
     .where('v.stringId', id)
@@ -74,15 +112,12 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       'v.notes',
       'v.isolationId',
       'v.kind',
+      {
+        photoIds: db('photos as p')
+          .whereRaw('p.visit_id = v.id')
+          .select(db.raw('json_arrayagg(p.id order by p.id)')),
+      },
     )
-  const photos = visits.length
-    ? await db('photos')
-        .whereIn(
-          'visitId',
-          visits.map((v) => v.id),
-        )
-        .select('id', 'visitId')
-    : []
   const burn = burnHoursPerDay(site.switchOn, site.switchOff)
   const assessed = stringAssessment(type, s)
   // The risk rule is judged by the forecast job, not by assess: its reason says which rule fired.
@@ -110,7 +145,7 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
   )
   // Age and exposure as stored at the last change of state, plus the hours burned since.
   const age = exposureNow(type, s, burn, now)
-  return {
+  const detail: StringDetail = {
     id: s.id,
     assetTag: s.assetTag,
     name: s.name,
@@ -141,8 +176,8 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
       accessNote: site.accessNote ?? null,
     },
     schedule: { switchOn: site.switchOn, switchOff: site.switchOff, burnHoursPerDay: burn },
-    circuit: circuit ? { ...circuit, rcdMa: circuit.rcdMa ?? null } : null,
-    structure: structure ? { ...structure, approvedLoad: structure.approvedLoad ?? null } : null,
+    circuit,
+    structure,
     certificates: certificates.map((c) => ({
       ...c,
       reference: c.reference ?? null,
@@ -151,14 +186,19 @@ export async function stringDetail(db: Db, id: number, now = new Date()): Promis
     assessment,
     forecast: fc,
     forecastDates: { firstFailure: fc.dates?.failures[0] ?? null, dark: fc.dates?.medianDark ?? null },
-    visits: visits.map((v) => ({
+    visits: visits.map(({ photoIds, ...v }) => ({
       ...v,
       visitedAt: iso(v.visitedAt),
       fuseReplaced: !!v.fuseReplaced,
       darkOnArrival: !!v.darkOnArrival,
       notes: v.notes ?? null,
       isolationId: v.isolationId ?? null,
-      photos: photos.filter((p) => p.visitId === v.id).map((p) => ({ id: p.id, ...photoUrls(p.id) })),
+      photos: idList(photoIds).map((p) => ({ id: p, ...photoUrls(p) })),
     })),
   }
+  return { detail, row: s as Record<string, unknown> }
+}
+
+export async function stringDetail(db: Db, id: number, now = new Date()): Promise<StringDetail> {
+  return (await stringDetailAndRow(db, id, now)).detail
 }

@@ -1,6 +1,7 @@
 // The engine applied to a string as recorded: its condition, lamp age and exposure, assessment and forecast.
 import { conditionOf, engineInput, exposureAfter, forecastInput } from '../../shared/string-status'
 import { forecast } from '../../shared/engine/forecast'
+import { DEFAULT_SEED } from '../../shared/engine/defaults'
 import { assess } from '../../shared/engine/assess'
 import type { StringType } from './strings'
 
@@ -105,7 +106,12 @@ export interface ForecastOptions {
   pDarkAt?: number[]
 }
 
-/** The engine's forecast request for a string as recorded now; seeded by the string's id so it is stable. */
+/**
+ * The engine's forecast request for a string as recorded now. Every string draws from the engine's one
+ * seed, so the answer depends on the string's state alone (type, condition, lamp ages, schedule): two
+ * strings in the same state share one simulation in the forecast cache, and the comparison of two
+ * strings is not blurred by their draws (common random numbers).
+ */
 export function stringForecastRequest(type: StringType, s: StringRecord, o: ForecastOptions) {
   const e = exposureNow(type, s, o.burnHoursPerDay, o.now)
   return forecastInput(type, conditionOf(s), {
@@ -114,7 +120,7 @@ export function stringForecastRequest(type: StringType, s: StringRecord, o: Fore
     burnHoursPerDay: o.burnHoursPerDay,
     startDate: o.startDate,
     trials: o.trials ?? 2000,
-    seed: s.id,
+    seed: DEFAULT_SEED,
     ...(o.pDarkAt?.length ? { pDarkAt: o.pDarkAt } : {}),
   })
 }

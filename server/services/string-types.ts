@@ -21,7 +21,10 @@ export async function updateStringType(db: Db, id: number, patch: Record<string,
     if (!(await trx('stringTypes').where({ id }).first('id'))) throw notFound('String type')
     // Hours burned so far count at the old life exponent: exposure is brought up to date first.
     if (patch.lifeExponent !== undefined) await accrueExposure(trx, { typeId: id })
-    await trx('stringTypes').where({ id }).update(patch)
+    // A new version: the estate's form holding the old one is stale, and the type caches see the change.
+    await trx('stringTypes')
+      .where({ id })
+      .update({ ...patch, version: trx.raw('version + 1'), updatedAt: new Date() })
     const type = await loadType(trx, id)
     const restated = await restateStrings(trx, { typeId: id })
     const count = Number((await trx('strings').where({ typeId: id }).count({ n: '*' }))[0].n)

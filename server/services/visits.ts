@@ -3,11 +3,12 @@ import { badRequest, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
 import { conditionOf, shuntedLampCount, stateColumns, stringStatus } from '../../shared/string-status'
 import { applyVisit, brightLampsError, countErrors, isRelamping, lampTotal } from '../../shared/visit-rules'
-import { loadType } from './strings'
+import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { exposureColumns, type StringRecord } from './string-engine'
 import { requireIsolatedFor } from './isolations'
 import { syncStringQueue, type KnownString } from './queue/strings'
+import { activeItemsColumn, activeItemsOf } from './queue/string-items'
 import { writeOnce } from './keyed-write'
 import { refreshSoon } from './queue/refresh-soon'
 import { consumeFitted } from './stock-consume'
@@ -15,17 +16,42 @@ import { consumeFitted } from './stock-consume'
 const invalid = (field: string, message: string) =>
   badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
 
-/** The first send's visit with the string as it is now (the row the lock read). */
-async function existingVisit(db: Db, key: string, s: StringRow) {
-  const v = await db('visits').where({ idempotencyKey: key }).first('id', 'brightLamps')
-  return v
-    ? {
-        id: v.id as number,
-        brightLamps: v.brightLamps as number,
-        string: { id: s.id, lampsOut: s.lampsOut, status: s.status, replaceNow: !!s.replaceNow },
-      }
-    : undefined
+/**
+ * What a send needs besides the string, in one statement: the first send's visit under this key (if
+ * any), the string's site and client, its active queue items and its type's stamp (type-cache.ts).
+ * The transaction's first plain read, made after the string's lock, so its snapshot holds whatever a
+ * first send committed.
+ */
+async function visitContext(db: Db, key: string, s: StringRow) {
+  const r = await db('sites as si')
+    .join('clients as c', 'c.id', 'si.clientId')
+    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
+    .leftJoin('visits as v', 'v.idempotencyKey', db.raw('?', [key]))
+    .where('si.id', s.siteId)
+    .first(
+      'si.clientId',
+      'c.switchOn',
+      'c.switchOff',
+      'v.id as visitId',
+      'v.brightLamps',
+      ...typeStampColumns('st'),
+      { items: activeItemsColumn(db, s.id, true) },
+    )
+  if (!r) throw notFound('Site')
+  return {
+    earlier:
+      r.visitId == null ? undefined : { id: r.visitId as number, brightLamps: r.brightLamps as number },
+    site: {
+      clientId: r.clientId as number,
+      switchOn: r.switchOn as string,
+      switchOff: r.switchOff as string,
+    },
+    items: activeItemsOf(s.id, r.items),
+    typeStamp: r as TypeStamp,
+  }
 }
+
+type VisitContext = Awaited<ReturnType<typeof visitContext>>
 
 /** A strings row as the lock reads it (every column). */
 type StringRow = StringRecord &
@@ -43,6 +69,7 @@ interface Author {
 export async function logVisit(db: Db, user: Author, key: string, body: VisitBody) {
   // The row the lock reads is the row the visit works from: read once per attempt, not again.
   let row: StringRow | undefined
+  let ctx: VisitContext | undefined
   const { created, result } = await writeOnce(db, {
     index: 'visits_idempotency_key_unique',
     // A repeat waits for the first send on the string row, then finds its visit rather than counting
@@ -51,16 +78,33 @@ export async function logVisit(db: Db, user: Author, key: string, body: VisitBod
       row = await trx('strings').where({ id: body.stringId }).forUpdate().first()
       if (!row) throw notFound('String')
     },
-    replay: (trx) => existingVisit(trx, key, row!),
-    create: (trx) => insertVisit(trx, user, key, body, row!),
+    // The first send's visit with the string as it is now (the row the lock read).
+    replay: async (trx) => {
+      ctx = await visitContext(trx, key, row!)
+      const s = row!
+      return ctx.earlier
+        ? {
+            ...ctx.earlier,
+            string: { id: s.id, lampsOut: s.lampsOut, status: s.status, replaceNow: !!s.replaceNow },
+          }
+        : undefined
+    },
+    create: (trx) => insertVisit(trx, user, key, body, row!, ctx!),
   })
   // The string's new forecast comes from a small refresh soon after; the visit does not wait for it.
   if (created) refreshSoon()
   return { created, visit: result }
 }
 
-async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody, s: StringRow) {
-  const type = await loadType(trx, s.typeId)
+async function insertVisit(
+  trx: Db,
+  user: Author,
+  key: string,
+  body: VisitBody,
+  s: StringRow,
+  { site, items, typeStamp }: VisitContext,
+) {
+  const type = await typeOf(trx, typeStamp)
   const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
   if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
   if (counts.replaced) throw invalid('replaced', counts.replaced)
@@ -111,11 +155,6 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody, 
     lng: body.lng ?? null,
   })
   // The hours burned since the last change count at the ratios then in force, before this visit's change.
-  const site = await trx('sites as si')
-    .join('clients as c', 'c.id', 'si.clientId')
-    .where('si.id', s.siteId)
-    .first('si.clientId', 'c.switchOn', 'c.switchOff')
-  if (!site) throw notFound('Site')
   const state = stateColumns(cond, assessed)
   await trx('strings')
     .where({ id: s.id })
@@ -127,7 +166,7 @@ async function insertVisit(trx: Db, user: Author, key: string, body: VisitBody, 
       lastVisitAt: now,
     })
   // The queue follows the string as just written: no need to read it back.
-  await syncStringQueue(trx, s.id, id, now, { ...s, ...state, clientId: site.clientId })
+  await syncStringQueue(trx, s.id, id, now, { ...s, ...state, clientId: site.clientId }, items)
   // What was fitted comes off the crew's van in this same commit (a replay never gets here).
   await consumeFitted(trx, {
     visitId: id,

@@ -53,6 +53,45 @@ describe('the forecast cache', () => {
     expect(forecastCacheStats()).toMatchObject({ misses: 2, hits: 1 })
   })
 
+  it('gives two strings in the same state one simulation and the same forecast', async () => {
+    // Another string of the type made the same as this one in every forecast input (condition, lamp
+    // ages, site and so schedule) and so in its state too; only its id, tag and place differ.
+    const s = await t.db('strings').where({ id: stringId }).first()
+    const other = await t
+      .db('strings')
+      .where({ typeId: s.typeId })
+      .whereNot({ id: stringId })
+      .orderBy('id')
+      .first('id')
+    const same = [
+      'siteId',
+      'lampsOut',
+      'fuseFailed',
+      'dark',
+      'isolated',
+      'lampAgeHours',
+      'status',
+      'replaceNow',
+      'replaceRule',
+      'riskNote',
+      'maxRatio',
+    ]
+    await t
+      .db('strings')
+      .where({ id: other.id })
+      .update({
+        ...Object.fromEntries(same.map((k) => [k, s[k]])),
+        lampExposure: s.lampExposure == null ? null : JSON.stringify(s.lampExposure),
+        exposureAt: s.exposureAt,
+      })
+    clearForecastCache()
+    const a = await detail()
+    const b = await request(t.app).get(`/api/v1/strings/${other.id}`).set('Authorization', crew)
+    expect(b.status).toBe(200)
+    expect(forecastCacheStats()).toMatchObject({ misses: 1, hits: 1 })
+    expect(b.body.forecast).toEqual(a.body.forecast)
+  })
+
   it('keys lamp ages in whole burning hours: a few minutes of burning keep the key, an hour does not', () => {
     // A made-up request; only its shape matters here.
     const req = (age: number) =>

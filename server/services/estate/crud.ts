@@ -46,8 +46,9 @@ async function withChildren(db: Db, def: KindDef, raw: Record<string, unknown>) 
   return def.loadChildren ? { ...row, ...(await def.loadChildren(db, raw.id as number)) } : row
 }
 
-export async function getOne(db: Db, def: KindDef, id: number) {
-  const raw = await db(def.table).where({ id }).first()
+/** One row with its children; `read`: the row as this request has read it already (not read again). */
+export async function getOne(db: Db, def: KindDef, id: number, read?: Record<string, unknown>) {
+  const raw = read?.id === id ? read : await db(def.table).where({ id }).first()
   if (!raw) throw notFound(def.label)
   return withChildren(db, def, raw)
 }

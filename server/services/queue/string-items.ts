@@ -55,7 +55,8 @@ export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: 
     ? [...STATE_KINDS.filter((k) => k !== kind), 'forecast_dark']
     : [...STATE_KINDS, 'forecast_dark', ...(visitId ? ['public_report' as const] : [])]
   const close = active.filter((i) => settled.includes(i.kind)).map((i) => i.id)
-  if (!kind) return { archived: [], close, open: null }
+  // An item of its kind open or snoozed already: nothing to open (openItems would find it and skip).
+  if (!kind || active.some((i) => i.kind === kind)) return { archived: [], close, open: null }
   const summary = stringItemSummary(kind, s)
   const open: OpenItem = {
     kind,
@@ -83,24 +84,42 @@ export function stringItemSummary(
   return `${s.assetTag} ${s.name}: ${plural(s.lampsOut, 'lamp')} out, replace now`
 }
 
+const activeKinds = (withReports: boolean): QueueKind[] => [
+  ...STATE_KINDS,
+  'forecast_dark',
+  ...(withReports ? ['public_report' as const] : []),
+]
+
 /** The open or snoozed state, forecast (and with a visit, public-report) items of these strings. */
 export async function activeStringItems(db: Db, ids: number[], withReports: boolean): Promise<ActiveItem[]> {
-  const kinds: QueueKind[] = [
-    ...STATE_KINDS,
-    'forecast_dark',
-    ...(withReports ? ['public_report' as const] : []),
-  ]
   const out: ActiveItem[] = []
   for (let i = 0; i < ids.length; i += CHUNK)
     out.push(
       ...(await db('queueItems')
         .whereIn('stringId', ids.slice(i, i + CHUNK))
-        .whereIn('kind', kinds)
+        .whereIn('kind', activeKinds(withReports))
         .whereIn('state', ACTIVE)
         .orderBy('id')
         .select('id', 'stringId', 'kind')),
     )
   return out
+}
+
+/**
+ * activeStringItems of one string as a subquery (a JSON list of [id, kind]), so a caller can read
+ * them in the same statement as other things; activeItemsOf turns the column back into the list.
+ */
+export function activeItemsColumn(db: Db, stringId: number, withReports: boolean) {
+  return db('queueItems as q')
+    .where('q.stringId', stringId)
+    .whereIn('q.kind', activeKinds(withReports))
+    .whereIn('q.state', ACTIVE)
+    .select(db.raw('json_arrayagg(json_array(q.id, q.kind) order by q.id)'))
+}
+
+export function activeItemsOf(stringId: number, column: unknown): ActiveItem[] {
+  const list = (typeof column === 'string' ? JSON.parse(column) : (column ?? [])) as [number, QueueKind][]
+  return list.map(([id, kind]) => ({ id, stringId, kind }))
 }
 
 /** Applies the plans: a few statements for all of them. */

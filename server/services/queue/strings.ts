@@ -9,6 +9,7 @@ import type { Db } from '../../db'
 import {
   activeStringItems,
   applyStringPlans,
+  type ActiveItem,
   planStringItems,
   stringsOutOfStep,
   syncStringItems,
@@ -33,6 +34,8 @@ export async function syncStringQueue(
   now = new Date(),
   /** The string as the caller has just written it (a visit), with its site's clientId: not read again. */
   known?: KnownString,
+  /** Its active items as the caller read them in this transaction (activeItemsColumn): not read again. */
+  knownItems?: ActiveItem[],
 ) {
   const s =
     known ??
@@ -52,7 +55,7 @@ export async function syncStringQueue(
         'si.clientId',
       ))
   if (!s) return
-  const active = await activeStringItems(db, [stringId], !!visitId)
+  const active = knownItems ?? (await activeStringItems(db, [stringId], !!visitId))
   await applyStringPlans(db, [planStringItems(s, active, visitId)], visitId, now)
 }
 

@@ -2,6 +2,7 @@
 // server uses (shared/string-status.ts), so the preview holds offline and matches the server's answer.
 import { assess, forecast, lifePhrase, percent } from '../../../shared/engine'
 import type { Reason } from '../../../shared/engine/reason-codes'
+import { DEFAULT_SEED } from '../../../shared/engine/defaults'
 import { assessmentView, isLiveSocket, toReason } from '../string/assessment-view'
 import { localDay } from '../../../shared/local-time'
 import { appTimeZone } from '../../dates'
@@ -73,10 +74,9 @@ export interface ForecastPreview {
   pDark72: number
 }
 
-/** The cascade forecast after the visit, on the phone: fewer trials than the server, same model and seed. */
+/** The cascade forecast after the visit, on the phone: fewer trials than the server, same model and seed (the engine's one seed). */
 export function previewForecast(
   d: {
-    id: number
     type: LifeSpec
     lampAgeHours: number
     /** Rated-voltage hours per lamp class, brought up to now by the server (absent on an older saved page). */
@@ -94,7 +94,7 @@ export function previewForecast(
       burnHoursPerDay: d.schedule.burnHoursPerDay,
       startDate: localDay(today, appTimeZone()),
       trials: 600,
-      seed: d.id,
+      seed: DEFAULT_SEED,
     }),
   )
   return {

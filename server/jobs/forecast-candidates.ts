@@ -10,6 +10,7 @@ import { stringRecordColumns, type StringRecord } from '../services/string-engin
 import { forecastKeySql, type KeyedType } from './forecast-key'
 import { curveAge, parseCurve, shareDarkBy, MAX_FORECAST_AGE_HOURS, type CurvePoint } from './forecast-curve'
 import { riskWindow, type RiskWindow } from '../services/replace-risk'
+import { UP_STATES } from '../services/queue/season'
 
 /** Strings the risk rule judges: lit or watched ones, and those it flagged before (to clear them). */
 export const judged = (r: { status: string; replaceRule: string | null }) =>
@@ -72,6 +73,8 @@ export async function forecastCandidates(
       .join('clients as c', 'c.id', 'si.clientId')
       .whereNotIn('s.status', ['dark', 'safe'])
       .whereNull('s.archivedAt')
+      // A string in store or taken down burns no hours and needs no patrol: no forecast, no item.
+      .whereIn('s.seasonState', UP_STATES)
       .select(
         ...stringRecordColumns('s'),
         's.assetTag',

@@ -8,6 +8,7 @@ import type { TakeDownBody, TakeDownResult } from '../../shared/schemas/season'
 import { writeOnce } from './keyed-write'
 import { insertSeasonVisit, lockString, type Author, type SeasonString } from './season'
 import { syncSeasonItemsOf, UP_STATES } from './queue/season'
+import { syncStringQueue } from './queue/strings'
 import { iso } from '../../shared/iso-time'
 
 export async function recordTakeDown(
@@ -57,6 +58,8 @@ export async function recordTakeDown(
       const seasonState = body.forRepair ? 'needs_repair' : 'taken_down'
       await trx('strings').where({ id: s.id }).update({ seasonState, storeBin: body.storeBin })
       await syncSeasonItemsOf(trx, s.siteId, at)
+      // Down off the street, its dark / replace-now / forecast items close in the same commit.
+      await syncStringQueue(trx, s.id, null, at)
       return { id, visitId, seasonState, storeBin: body.storeBin }
     },
   })

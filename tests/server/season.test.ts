@@ -84,6 +84,8 @@ beforeAll(async () => {
   ids.replayed = await string('REPLAY')
   ids.down = await string('DOWN', { seasonState: 'in_service' })
   ids.repair = await string('REPAIR', { seasonState: 'in_service' })
+  ids.darkUp = await string('DARK-UP', { seasonState: 'in_service', status: 'dark', dark: true })
+  ids.darkStored = await string('DARK-STORE', { status: 'dark', dark: true })
 })
 
 afterAll(async () => {
@@ -207,6 +209,34 @@ describe('take-down and storage', () => {
     expect(inspected.body.seasonState).toBe('in_store')
     const after = await request(t.app).get('/api/v1/season/repairs').set('Authorization', crew)
     expect(after.body.items.map((i: { stringId: number }) => i.stringId)).not.toContain(ids.repair)
+  })
+})
+
+// Common practice, no source: street work (a dark string, relamping) is for strings up on the street;
+// one in store is dealt with by its inspection in store before it goes up again.
+describe('street items follow the season', () => {
+  const streetItems = (stringId: number) =>
+    t
+      .db('queueItems')
+      .where({ stringId })
+      .whereIn('kind', ['dark', 'replace_now', 'forecast_dark'])
+      .whereIn('state', ['open', 'snoozed'])
+      .pluck('kind')
+
+  it('a dark string taken down loses its dark item in the same commit; one in store never gets one', async () => {
+    const supervisor = `Bearer ${await t.token('supervisor')}`
+    const refreshed = await request(t.app).post('/api/v1/queue/refresh').set('Authorization', supervisor)
+    expect(refreshed.status).toBe(200)
+    expect(await streetItems(ids.darkUp)).toEqual(['dark'])
+    expect(await streetItems(ids.darkStored)).toEqual([])
+    const res = await send(`/strings/${ids.darkUp}/take-down`, {
+      lampsOut: 0,
+      cable: 'good',
+      connectors: 'good',
+      storeBin: 'Depot A-04',
+    })
+    expect(res.status).toBe(201)
+    expect(await streetItems(ids.darkUp)).toEqual([])
   })
 })
 

@@ -7,6 +7,7 @@ import type { StringStatus } from '../../../shared/schemas/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import type { Db } from '../../db'
 import { plural } from '../../../shared/number-format'
+import { UP_STATES } from './season'
 
 export const STATE_KINDS = Object.values(stringStatusKind) as QueueKind[]
 const NEEDING = Object.keys(stringStatusKind) as StringStatus[]
@@ -23,6 +24,8 @@ export interface QueuedString {
   riskNote: string | null
   siteId: number
   archivedAt: Date | null
+  /** Where the string is in its season: only one up on the street needs street work. */
+  seasonState: string
   clientId: number
 }
 
@@ -35,6 +38,8 @@ export interface ActiveItem {
 export interface StringPlan {
   /** items to close because the string was archived (reports stay) */
   archived: number[]
+  /** items to close because the string is not up: in store, taken down or in for repair (reports stay) */
+  down: number[]
   /** items to close because the string's state has moved on */
   close: number[]
   open: OpenItem | null
@@ -46,17 +51,18 @@ export interface StringPlan {
  * (its crew saw it); a changed threshold does not answer a reporter.
  */
 export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: number | null): StringPlan {
-  if (s.archivedAt) {
-    const ids = active.filter((i) => i.kind === 'forecast_dark' || STATE_KINDS.includes(i.kind))
-    return { archived: ids.map((i) => i.id), close: [], open: null }
-  }
+  const streetItems = () =>
+    active.filter((i) => i.kind === 'forecast_dark' || STATE_KINDS.includes(i.kind)).map((i) => i.id)
+  if (s.archivedAt) return { archived: streetItems(), down: [], close: [], open: null }
+  if (!(UP_STATES as readonly string[]).includes(s.seasonState))
+    return { archived: [], down: streetItems(), close: [], open: null }
   const kind: QueueKind | undefined = stringStatusKind[s.status as keyof typeof stringStatusKind]
   const settled: QueueKind[] = kind
     ? [...STATE_KINDS.filter((k) => k !== kind), 'forecast_dark']
     : [...STATE_KINDS, 'forecast_dark', ...(visitId ? ['public_report' as const] : [])]
   const close = active.filter((i) => settled.includes(i.kind)).map((i) => i.id)
   // An item of its kind open or snoozed already: nothing to open (openItems would find it and skip).
-  if (!kind || active.some((i) => i.kind === kind)) return { archived: [], close, open: null }
+  if (!kind || active.some((i) => i.kind === kind)) return { archived: [], down: [], close, open: null }
   const summary = stringItemSummary(kind, s)
   const open: OpenItem = {
     kind,
@@ -67,7 +73,7 @@ export function planStringItems(s: QueuedString, active: ActiveItem[], visitId: 
     severity: 'standard',
     summary,
   }
-  return { archived: [], close, open }
+  return { archived: [], down: [], close, open }
 }
 
 /**
@@ -124,11 +130,15 @@ export function activeItemsOf(stringId: number, column: unknown): ActiveItem[] {
 
 /** Applies the plans: a few statements for all of them. */
 export async function applyStringPlans(db: Db, plans: StringPlan[], visitId: number | null, now: Date) {
-  const reason = 'String archived'
   await closeItems(
     db,
     plans.flatMap((p) => p.archived),
-    { now, reason },
+    { now, reason: 'String archived' },
+  )
+  await closeItems(
+    db,
+    plans.flatMap((p) => p.down),
+    { now, reason: 'String not up this season' },
   )
   await closeItems(
     db,
@@ -150,7 +160,7 @@ export async function syncStringItems(db: Db, ids: number[], now = new Date()) {
       .join('sites as si', 'si.id', 's.siteId')
       .whereIn('s.id', chunk)
       .select('s.id', 's.assetTag', 's.name', 's.status', 's.lampsOut', 's.replaceRule', 's.riskNote')
-      .select('s.siteId', 's.archivedAt', 'si.clientId')
+      .select('s.siteId', 's.archivedAt', 's.seasonState', 'si.clientId')
     const active = new Map<number, ActiveItem[]>()
     for (const a of await activeStringItems(db, chunk, false))
       active.set(a.stringId, [...(active.get(a.stringId) ?? []), a])
@@ -169,6 +179,7 @@ export async function stringsOutOfStep(db: Db): Promise<number[]> {
   const lacking = await db('strings as s')
     .whereIn('s.status', NEEDING)
     .whereNull('s.archivedAt')
+    .whereIn('s.seasonState', UP_STATES)
     .whereNotExists((q) =>
       q
         .select(db.raw('1'))
@@ -187,5 +198,14 @@ export async function stringsOutOfStep(db: Db): Promise<number[]> {
     .whereRaw(`q.kind <> ${kindOfStatus}`)
     .distinct('s.id')
     .pluck('s.id')
-  return [...new Set([...lacking, ...crossed] as number[])]
+  // Strings in store, taken down or in for repair that still hold street items.
+  const down = await db('queueItems as q')
+    .join('strings as s', 's.id', 'q.stringId')
+    .whereNotIn('s.seasonState', UP_STATES)
+    .whereNull('s.archivedAt')
+    .whereIn('q.state', ACTIVE)
+    .whereIn('q.kind', [...STATE_KINDS, 'forecast_dark'])
+    .distinct('s.id')
+    .pluck('s.id')
+  return [...new Set([...lacking, ...crossed, ...down] as number[])]
 }

@@ -52,6 +52,7 @@ export async function syncStringQueue(
         's.riskNote',
         's.siteId',
         's.archivedAt',
+        's.seasonState',
         'si.clientId',
       ))
   if (!s) return

@@ -105,8 +105,8 @@ export default defineConfig({
       },
     }),
     // ---- end PWA ------------------------------------------------------------------------------------
-    // The sign-in page's weights: 400 text, 500 buttons, 600 its heading, 700 the app's name.
-    preloadFonts([400, 500, 600, 700]),
+    // The sign-in page's weights: 400 text, 500 buttons, 600 its heading and the app's name (src/main.ts).
+    preloadFonts([400, 500, 600]),
     precompress(),
   ],
   server: { port: 5173, proxy: { '/api': api, '/uploads': apiTarget } },

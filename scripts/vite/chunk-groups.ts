@@ -88,6 +88,8 @@ const FIRST_SCREENS = new RegExp(
 interface Graph {
   /** The entry's static closure: already loaded on every screen. */
   entry: Set<string>
+  /** Modules that import a large feature library, directly or not (map pieces draw with Leaflet). */
+  heavy: Set<string>
   /** Module → the lazily loaded roots (pages, layouts) whose static closure holds it. */
   owners: Map<string, Set<string>>
 }
@@ -128,7 +130,18 @@ function buildGraph(ctx: Ctx): Graph {
       if (!set) owners.set(id, (set = new Set()))
       set.add(root)
     }
-  return { entry, owners }
+  const heavy = new Set<string>()
+  const checked = new Set<string>()
+  const reachesFeature = (id: string): boolean => {
+    if (FEATURE.test(id)) return true
+    if (checked.has(id)) return heavy.has(id)
+    checked.add(id)
+    const found = (ctx.getModuleInfo(id)?.importedIds ?? []).some(reachesFeature)
+    if (found) heavy.add(id)
+    return found
+  }
+  for (const id of owners.keys()) reachesFeature(id)
+  return { entry, heavy, owners }
 }
 
 // One graph per chunking pass: the pass hands out the same module-info objects throughout.
@@ -142,7 +155,8 @@ function sharedChunk(id: string, ctx: Ctx): string | null {
     graph = buildGraph(ctx)
     graphFor = pass
   }
-  if (graph.entry.has(id) || BASE.test(id) || FEATURE.test(id) || ON_DEMAND.test(id)) return null
+  if (graph.entry.has(id) || BASE.test(id) || ON_DEMAND.test(id) || FEATURE.test(id) || graph.heavy.has(id))
+    return null
   const owners = [...(graph.owners.get(id) ?? [])].filter((o) => !ON_DEMAND.test(o))
   if (owners.some((o) => PUBLIC_PAGES.test(o))) return owners.length > 1 ? 'public' : null
   if (owners.some((o) => SHELL_ROOTS.test(o))) return 'shell'

@@ -12,7 +12,7 @@ import lang from 'quasar/lang/en-GB.js'
 import '@fontsource/roboto/latin-400.css'
 import '@fontsource/roboto/latin-500.css'
 import '@fontsource/roboto/latin-600.css'
-import 'quasar/src/css/index.sass'
+import './css/quasar.sass'
 import './css/app.sass'
 
 import App from './App.vue'

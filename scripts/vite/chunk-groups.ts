@@ -170,6 +170,7 @@ const LEAFLET = new RegExp(path('node_modules', '(leaflet|@vue-leaflet)', ''))
 
 export const chunkGroups: Group[] = [
   { name: 'base', test: BASE, priority: 2 },
-  { name: 'leaflet', test: LEAFLET, priority: 2 },
+  // Not their dependencies: the bundler's preload helper, which the entry uses too, would move here.
+  { name: 'leaflet', test: LEAFLET, priority: 2, includeDependenciesRecursively: false },
   { name: sharedChunk, debugName: 'shared', priority: 1, includeDependenciesRecursively: false },
 ]

@@ -3,22 +3,18 @@
 // `<link rel=preload as=fetch>` is the browser's own cache for this: the page's later fetch of the
 // same address, with the same credentials, takes the preloaded answer. The session and the config,
 // which every screen waits for, are preloaded by index.html itself.
-import { API_BASE } from '../api/http'
-
-/** Path → the GETs its page makes first (the same addresses as the page's api/ calls). */
-const FIRST_DATA: Record<string, readonly string[]> = {
-  '/run': ['/runs/mine'],
-  '/map': ['/basemap'],
-}
+import { FIRST_DATA } from './first-data-paths'
 
 export function preloadFirstData(pathname: string): void {
-  for (const path of FIRST_DATA[pathname.replace(/\/+$/, '') || '/'] ?? []) {
+  for (const href of FIRST_DATA[pathname.replace(/\/+$/, '') || '/'] ?? []) {
+    // The copies of index.html for the first screens (scripts/vite/route-html.ts) name it already.
+    if (document.head.querySelector(`link[rel="preload"][href="${href}"]`)) continue
     const link = document.createElement('link')
     link.rel = 'preload'
     link.as = 'fetch'
     // The API client sends the session cookie (credentials: 'include'); the preload must match it.
     link.crossOrigin = 'use-credentials'
-    link.href = `${API_BASE}${path}`
+    link.href = href
     document.head.append(link)
   }
 }

@@ -1,7 +1,6 @@
 import { createApp, watch } from 'vue'
 import { createPinia } from 'pinia'
 import { Dark, LocalStorage, Quasar } from 'quasar'
-import iconSet from 'quasar/icon-set/svg-mdi-v7'
 // The default APP_LOCALE's pack (date pickers, table labels); dates themselves come from src/dates.ts.
 import lang from 'quasar/lang/en-GB.js'
 
@@ -16,6 +15,7 @@ import './css/quasar.sass'
 import './css/app.sass'
 
 import App from './App.vue'
+import { iconSet } from './quasar-icon-set'
 import { setUnauthenticatedHandler } from './api/http'
 import { router } from './router'
 import { preloadFirstData } from './router/first-data'

@@ -8,6 +8,7 @@ import { splitIcons } from './scripts/vite/split-icons'
 import { precompress } from './scripts/vite/precompress'
 import { preloadFonts } from './scripts/vite/preload-fonts'
 import { chunkGroups } from './scripts/vite/chunk-groups'
+import { routeHtml } from './scripts/vite/route-html'
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '3000'}`
 
@@ -105,8 +106,15 @@ export default defineConfig({
       },
     }),
     // ---- end PWA ------------------------------------------------------------------------------------
-    // The sign-in page's weights: 400 text, 500 buttons, 600 its heading, 700 the app's name.
-    preloadFonts([400, 500, 600, 700]),
+    // The sign-in page's weights: 400 text, 500 buttons, 600 its heading and the app's name (src/main.ts).
+    preloadFonts([400, 500, 600]),
+    // The first screens: sign-in and the public report (signed out), the crew's run and map.
+    routeHtml(fileURLToPath(new URL('.', import.meta.url)).replace(/\/$/, ''), [
+      { path: '/', modules: ['src/layouts/PublicLayout.vue', 'src/pages/auth/SignInPage.vue'] },
+      { path: '/report', modules: ['src/layouts/PublicLayout.vue', 'src/pages/report/ReportFaultPage.vue'] },
+      { path: '/run', modules: ['src/layouts/MainLayout.vue', 'src/pages/run/RunPage.vue'] },
+      { path: '/map', modules: ['src/layouts/MainLayout.vue', 'src/pages/map/MapPage.vue'] },
+    ]),
     precompress(),
   ],
   server: { port: 5173, proxy: { '/api': api, '/uploads': apiTarget } },

@@ -69,9 +69,20 @@ export function serveAssets(app: Express, clientDir: string): void {
   })
 }
 
-/** Serves the rest of the built client; every other path falls back to index.html. */
+/**
+ * Serves the rest of the built client; every other path falls back to index.html, or to the copy of it
+ * built for that path (dist/routes/<path>.html, scripts/vite/route-html.ts: the first screens, which
+ * name their own code and first answer so the browser fetches them with the entry).
+ */
 export function serveClient(app: Express, clientDir: string): void {
   const dir = resolve(clientDir)
+  const routesDir = join(dir, 'routes')
+  // Read once at start-up: a request path is only looked up in this set, never joined onto the disk.
+  const routeCopies = new Set(existsSync(routesDir) ? readdirSync(routesDir) : [])
+  const htmlFor = (path: string): string => {
+    const name = `${path === '/' ? 'index' : path.slice(1)}.html`
+    return routeCopies.has(name) ? `routes/${name}` : 'index.html'
+  }
   // index.html, sw.js, workbox-*.js, the manifest and icons: unhashed names, so always revalidated.
   app.use(
     express.static(dir, {
@@ -80,9 +91,13 @@ export function serveClient(app: Express, clientDir: string): void {
       setHeaders: (res) => res.setHeader('Cache-Control', NO_CACHE),
     }),
   )
-  app.get(/^\/(?!api\/|uploads\/).*/, (_req, res) => {
+  app.get(/^\/(?!api\/|uploads\/).*/, (req, res) => {
     // `root` keeps the check for dot-folders to the file name, so a client built into a folder such
     // as `.bench-web/dist` is still served.
-    res.sendFile('index.html', { root: dir, cacheControl: false, headers: { 'Cache-Control': NO_CACHE } })
+    res.sendFile(htmlFor(req.path), {
+      root: dir,
+      cacheControl: false,
+      headers: { 'Cache-Control': NO_CACHE },
+    })
   })
 }

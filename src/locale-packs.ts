@@ -2,12 +2,14 @@
 // APP_LOCALE names them. A tag is matched whole, then by its language (fr-BE → fr); others keep en-GB.
 import dayjs from 'dayjs'
 import { Lang } from 'quasar'
-// The default pack is in the main bundle already (src/main.ts installs it before GET /config answers).
+// The default packs are in the main bundle already (src/main.ts installs Quasar's before GET /config
+// answers): the first screen then waits for no further download after the config (issue 14).
 import quasarEnGB from 'quasar/lang/en-GB.js'
+import dayjsEnGB from 'dayjs/locale/en-gb.js'
 
 type Pack = { default: unknown }
 const packs: Record<string, { dates: () => Promise<Pack>; quasar: () => Promise<Pack> }> = {
-  'en-GB': { dates: () => import('dayjs/locale/en-gb.js'), quasar: async () => ({ default: quasarEnGB }) },
+  'en-GB': { dates: async () => ({ default: dayjsEnGB }), quasar: async () => ({ default: quasarEnGB }) },
   'en-IE': { dates: () => import('dayjs/locale/en-ie.js'), quasar: async () => ({ default: quasarEnGB }) },
   'en-US': { dates: () => import('dayjs/locale/en.js'), quasar: () => import('quasar/lang/en-US.js') },
   da: { dates: () => import('dayjs/locale/da.js'), quasar: () => import('quasar/lang/da.js') },

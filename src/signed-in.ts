@@ -5,6 +5,7 @@
 import { getCurrentInstance, type App } from 'vue'
 import { Dialog, Notify, type QVueGlobals } from 'quasar'
 import { startOffline } from './offline/start-offline'
+import { afterPaint } from './after-paint'
 
 interface LatePlugin {
   install(opts: { $q: QVueGlobals; parentApp: App }): void
@@ -29,10 +30,10 @@ export function useSignedInPlugins(): void {
   if (app) installSignedInPlugins(app)
 }
 
-/** The plugins, then the service worker and the outbox sender (once per page load). */
+/** The plugins, then (once the first screen has drawn) the service worker and the outbox sender. */
 export function startSignedIn(app: App): void {
   installSignedInPlugins(app)
   if (offlineStarted) return
   offlineStarted = true
-  startOffline()
+  afterPaint(startOffline)
 }

@@ -2,7 +2,9 @@
 // for uploads). Every failure surfaces as an ApiError carrying the server's stable `code`, so pages
 // branch on codes rather than on message text.
 
-export const API_BASE = '/api/v1'
+import { API_BASE } from './base'
+
+export { API_BASE }
 
 export class ApiError extends Error {
   readonly status: number

@@ -22,6 +22,10 @@ beforeAll(async () => {
   mkdirSync(join(dir, 'assets'))
   writeFileSync(join(dir, 'index.html'), '<!doctype html><title>Lampwright</title><div id="app"></div>')
   writeFileSync(join(dir, 'sw.js'), 'self.addEventListener("fetch", () => {})')
+  // The first screens' copies of index.html (scripts/vite/route-html.ts).
+  mkdirSync(join(dir, 'routes'))
+  writeFileSync(join(dir, 'routes', 'run.html'), '<!doctype html><title>Lampwright</title><!-- run -->')
+  writeFileSync(join(dir, 'routes', 'index.html'), '<!doctype html><title>Lampwright</title><!-- sign-in -->')
   writeFileSync(join(dir, 'assets', 'index-AbC123.js'), SCRIPT)
   writeFileSync(join(dir, 'assets', 'index-AbC123.js.br'), brotliCompressSync(SCRIPT))
   writeFileSync(join(dir, 'assets', 'index-AbC123.js.gz'), gzipSync(SCRIPT))
@@ -99,6 +103,17 @@ describe('serving the built client', () => {
     const sw = await fetchRaw('/sw.js')
     expect(sw.status).toBe(200)
     expect(sw.headers['cache-control']).toBe('no-cache')
+  })
+
+  it('sends a first screen its own copy of the HTML, and index.html to every other path', async () => {
+    const run = await fetchRaw('/run')
+    expect(run.body.toString()).toContain('<!-- run -->')
+    expect(run.headers['cache-control']).toBe('no-cache')
+    expect((await fetchRaw('/')).body.toString()).toContain('<!-- sign-in -->')
+    expect((await fetchRaw('/queue')).body.toString()).toContain('<div id="app">')
+    // Only a known copy's name is ever read: a path is looked up, never joined onto the folder.
+    expect((await fetchRaw('/routes/../run')).body.toString()).not.toContain('<!-- sign-in -->')
+    expect((await fetchRaw('/run/x')).body.toString()).toContain('<div id="app">')
   })
 
   it('answers a missing hashed file 404 and never falls back to the HTML', async () => {

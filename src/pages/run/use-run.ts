@@ -8,6 +8,7 @@ import { isUnreachable, prefetchStrings } from '../../offline/string-cache'
 import { useAuthStore } from '../../stores/auth'
 import { addDays, appTimeZone, today } from '../../dates'
 import { shiftDate } from '../../../shared/local-time'
+import { afterPaint } from '../../after-paint'
 
 export function useRun() {
   const auth = useAuthStore()
@@ -48,7 +49,8 @@ export function useRun() {
       if (navigator.onLine) {
         offlineSavedAt.value = null
         await saveRun(userId, run).catch(() => undefined)
-        void prefetch(run, mine)
+        // After the run has drawn: the crew sees the run first, the copies follow (issue 14).
+        afterPaint(() => void prefetch(run, mine))
       } else {
         // The service worker answered from its cache: say so.
         offlineSavedAt.value = (await fromPhone(userId))?.savedAt ?? run.date

@@ -45,8 +45,9 @@ export async function startBenchServer(db: BenchDatabase, workers?: string): Pro
       DEMO_MODE: 'true',
       DATA_DIR: join(dir, 'app'),
       UPLOAD_DIR: join(dir, 'uploads'),
-      // Every request logged as in production (run-script's default is warn), to a file, not the pipe.
-      LOG_LEVEL: 'info',
+      // Every request logged as in production (run-script's default is warn), to a file, not the pipe;
+      // BENCH_LOG_LEVEL=warn measures without the request lines, as runs before 2026-12-03 did.
+      LOG_LEVEL: process.env.BENCH_LOG_LEVEL ?? 'info',
       LOG_FILE: join(dir, 'requests.log'),
       ...(workers ? { WORKERS: workers } : {}),
     },

@@ -38,6 +38,11 @@ export function plural(n: number, one: string, many = `${one}s`, locale = DEFAUL
   return `${formatNumber(n, 0, locale)} ${n === 1 ? one : many}`
 }
 
+/** Items joined as a sentence says them: ['a', 'b', 'c'] → "a, b and c". */
+export function listOf(items: string[], locale = DEFAULT_LOCALE): string {
+  return new Intl.ListFormat(locale, { style: 'long', type: 'conjunction' }).format(items)
+}
+
 /** The noun or verb alone, agreeing with a count: (1, 'stays', 'stay') → "stays". */
 export function agree(n: number, one: string, many: string): string {
   return n === 1 ? one : many

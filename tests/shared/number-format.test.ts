@@ -2,7 +2,7 @@
 // (grouping ",", decimal ".", currency "¤#,##0.00": "£" before the amount, two decimals for GBP per
 // ISO 4217) and de-DE (grouping ".", decimal ",", currency "#,##0.00 ¤" with a no-break space).
 import { describe, expect, it } from 'vitest'
-import { agree, formatFixed, formatMoney, formatNumber, plural } from '../../shared/number-format'
+import { agree, formatFixed, formatMoney, formatNumber, listOf, plural } from '../../shared/number-format'
 
 describe('numbers a person reads', () => {
   it('groups thousands (CLDR en-GB "#,##0.###")', () => {
@@ -33,5 +33,16 @@ describe('numbers a person reads', () => {
     expect(plural(3, 'try', 'tries')).toBe('3 tries')
     expect(agree(1, 'stays', 'stay')).toBe('stays')
     expect(agree(2, 'stays', 'stay')).toBe('stay')
+  })
+})
+
+describe('listOf', () => {
+  // Unicode CLDR list patterns: en-GB joins the last two with " and " and no serial comma; en-US adds it.
+  it('joins as the locale writes a list', () => {
+    expect(listOf(['2 live supply points', '60 live structures', '60 live strings'])).toBe(
+      '2 live supply points, 60 live structures and 60 live strings',
+    )
+    expect(listOf(['a', 'b', 'c'], 'en-US')).toBe('a, b, and c')
+    expect(listOf(['12 live sites'])).toBe('12 live sites')
   })
 })

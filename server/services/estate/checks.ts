@@ -3,7 +3,7 @@
 import type { Db } from '../../db'
 import { badRequest, conflict, HttpError } from '../../errors'
 import type { KindDef } from './kinds'
-import { plural } from '../../../shared/number-format'
+import { listOf, plural } from '../../../shared/number-format'
 
 const field = (name: string, message: string) => ({ fields: [{ path: `body.${name}`, message }] })
 
@@ -39,7 +39,7 @@ export async function checkNotInUse(db: Db, def: KindDef, id: number, all: KindD
   if (users.length)
     throw conflict(
       'in_use',
-      `This ${def.label.toLowerCase()} is still used by ${users.join(' and ')}: archive or move them first.`,
+      `This ${def.label.toLowerCase()} is still used by ${listOf(users)}: archive or move them first.`,
       { inUse: users },
     )
 }

@@ -73,6 +73,11 @@ export function knexConfig(url: string): Knex.Config {
  */
 export type Db = Knex | Knex.Transaction
 
+/** A JSON column or JSON-built value as the driver hands it (text, or parsed already); `empty` for NULL. */
+export function jsonColumn<T>(v: unknown, empty: T): T {
+  return v == null ? empty : ((typeof v === 'string' ? JSON.parse(v) : v) as T)
+}
+
 export function createDb(url: string): Knex {
   return knex(knexConfig(url))
 }

@@ -6,6 +6,7 @@
 // process: grouping thousands of rows in SQL for every zoomed-out pan cost ~20 ms of MariaDB per
 // request, this a few ms of JavaScript. The (lat, lng) index serves the street-zoom box.
 import type { Db } from '../db'
+import { lineOf } from './strings'
 import {
   MAP_CELL_PX,
   MAP_DETAIL_ZOOM,
@@ -23,9 +24,6 @@ const inBox = (db: Db, [minLng, minLat, maxLng, maxLat]: Box) =>
     .whereBetween('s.lat', [minLat, maxLat])
     .whereBetween('s.lng', [minLng, maxLng])
     .whereNull('s.archivedAt') // archived strings leave the map; their history stays
-
-const parseLine = (v: unknown) =>
-  (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
 
 /** The grid's square at `zoom`, in degrees of longitude and latitude (Web Mercator, at the box's middle). */
 export function cellDegrees(zoom: number, midLat: number): { dLng: number; dLat: number } {
@@ -58,7 +56,7 @@ async function itemRows(db: Db, q: ReturnType<typeof inBox>, withLines: boolean)
   const lines: MapView['lines'] = []
   if (withLines)
     for (const r of rows) {
-      const line = parseLine(r.line)
+      const line = lineOf(r.line)
       if (line && line.length > 1) lines.push([r.id, line])
     }
   return { items, lines }

@@ -1,4 +1,5 @@
-import type { Db } from '../db'
+import { jsonColumn, type Db } from '../db'
+import { lineOf } from './strings'
 import { notFound } from '../errors'
 import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
@@ -9,11 +10,6 @@ import { cachedForecast } from './forecast-cache'
 import { iso, isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
 import { config } from '../config'
-
-const idList = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : (v ?? [])) as number[]
-
-const parseLine = (v: unknown) =>
-  (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
 
 /**
  * The string's site and client, circuit (with its supply point) and structure: one row, one statement
@@ -157,7 +153,7 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
     replaceNow: !!s.replaceNow,
     lat: s.lat,
     lng: s.lng,
-    line: parseLine(s.line),
+    line: lineOf(s.line),
     installedOn: s.installedOn ?? null,
     seasonState: s.seasonState,
     storeBin: s.storeBin ?? null,
@@ -193,7 +189,7 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
       darkOnArrival: !!v.darkOnArrival,
       notes: v.notes ?? null,
       isolationId: v.isolationId ?? null,
-      photos: idList(photoIds).map((p) => ({ id: p, ...photoUrls(p) })),
+      photos: jsonColumn<number[]>(photoIds, []).map((p) => ({ id: p, ...photoUrls(p) })),
     })),
   }
   return { detail, row: s as Record<string, unknown> }

@@ -1,11 +1,11 @@
-import type { Db } from '../db'
+import { jsonColumn, type Db } from '../db'
 import { notFound } from '../errors'
 import type { MapItem, StringDetail } from '../../shared/schemas/strings'
 import type { StringStatus, TypeSpec } from '../../shared/string-status'
 import { burnHoursPerDay } from '../../shared/schedule'
 
-const parseLine = (v: unknown) =>
-  (v == null ? null : typeof v === 'string' ? JSON.parse(v) : v) as [number, number][] | null
+/** A string's drawn line from its JSON column ([lng, lat] points), null for a point string. */
+export const lineOf = (v: unknown) => jsonColumn<[number, number][] | null>(v, null)
 
 export async function listForMap(
   db: Db,
@@ -45,7 +45,7 @@ export async function listForMap(
     truncated,
     items: rows
       .slice(0, q.limit)
-      .map((r) => ({ ...r, replaceNow: Boolean(r.replaceNow), line: parseLine(r.line) })),
+      .map((r) => ({ ...r, replaceNow: Boolean(r.replaceNow), line: lineOf(r.line) })),
   }
 }
 

@@ -5,7 +5,7 @@
 import { stringStatusKind, type QueueKind } from '../../../shared/schemas/queue'
 import type { StringStatus } from '../../../shared/schemas/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
-import type { Db } from '../../db'
+import { jsonColumn, type Db } from '../../db'
 import { plural } from '../../../shared/number-format'
 import { UP_STATES } from './season'
 
@@ -124,8 +124,7 @@ export function activeItemsColumn(db: Db, stringId: number, withReports: boolean
 }
 
 export function activeItemsOf(stringId: number, column: unknown): ActiveItem[] {
-  const list = (typeof column === 'string' ? JSON.parse(column) : (column ?? [])) as [number, QueueKind][]
-  return list.map(([id, kind]) => ({ id, stringId, kind }))
+  return jsonColumn<[number, QueueKind][]>(column, []).map(([id, kind]) => ({ id, stringId, kind }))
 }
 
 /** Applies the plans: a few statements for all of them. */
@@ -189,23 +188,19 @@ export async function stringsOutOfStep(db: Db): Promise<number[]> {
         .whereRaw(`q.kind = ${kindOfStatus}`),
     )
     .pluck('s.id')
+  // Strings holding a street item they should not: one of another state kind, a forecast item their
+  // state item replaces, or any street item while in store, taken down or in for repair.
   const crossed = await db('queueItems as q')
     .join('strings as s', 's.id', 'q.stringId')
-    .whereIn('s.status', NEEDING)
     .whereNull('s.archivedAt')
     .whereIn('q.state', ACTIVE)
     .whereIn('q.kind', [...STATE_KINDS, 'forecast_dark'])
-    .whereRaw(`q.kind <> ${kindOfStatus}`)
+    .where((w) =>
+      w
+        .where((n) => n.whereIn('s.status', NEEDING).whereRaw(`q.kind <> ${kindOfStatus}`))
+        .orWhereNotIn('s.seasonState', UP_STATES),
+    )
     .distinct('s.id')
     .pluck('s.id')
-  // Strings in store, taken down or in for repair that still hold street items.
-  const down = await db('queueItems as q')
-    .join('strings as s', 's.id', 'q.stringId')
-    .whereNotIn('s.seasonState', UP_STATES)
-    .whereNull('s.archivedAt')
-    .whereIn('q.state', ACTIVE)
-    .whereIn('q.kind', [...STATE_KINDS, 'forecast_dark'])
-    .distinct('s.id')
-    .pluck('s.id')
-  return [...new Set([...lacking, ...crossed, ...down] as number[])]
+  return [...new Set([...lacking, ...crossed] as number[])]
 }

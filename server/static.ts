@@ -1,6 +1,7 @@
 import express, { type Express, type RequestHandler } from 'express'
 import { existsSync, readdirSync } from 'node:fs'
 import { extname, join, resolve } from 'node:path'
+import { ROUTE_HTML_DIR, routeHtmlFile } from '../shared/route-html'
 
 /** Hashed file names never change content: a year, and no revalidation (RFC 8246 `immutable`). */
 export const IMMUTABLE = 'public, max-age=31536000, immutable'
@@ -76,12 +77,14 @@ export function serveAssets(app: Express, clientDir: string): void {
  */
 export function serveClient(app: Express, clientDir: string): void {
   const dir = resolve(clientDir)
-  const routesDir = join(dir, 'routes')
+  const routesDir = join(dir, ROUTE_HTML_DIR)
   // Read once at start-up: a request path is only looked up in this set, never joined onto the disk.
-  const routeCopies = new Set(existsSync(routesDir) ? readdirSync(routesDir) : [])
+  const routeCopies = new Set(
+    (existsSync(routesDir) ? readdirSync(routesDir) : []).map((f) => `${ROUTE_HTML_DIR}/${f}`),
+  )
   const htmlFor = (path: string): string => {
-    const name = `${path === '/' ? 'index' : path.slice(1)}.html`
-    return routeCopies.has(name) ? `routes/${name}` : 'index.html'
+    const file = routeHtmlFile(path)
+    return routeCopies.has(file) ? file : 'index.html'
   }
   // index.html, sw.js, workbox-*.js, the manifest and icons: unhashed names, so always revalidated.
   app.use(

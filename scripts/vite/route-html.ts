@@ -6,6 +6,7 @@
 // little later.
 import type { Plugin, Rollup } from 'vite'
 import { FIRST_DATA } from '../../src/router/first-data-paths'
+import { routeHtmlFile } from '../../shared/route-html'
 
 export interface RouteScreen {
   /** The path as the browser asks for it ('/', '/report'). */
@@ -13,9 +14,6 @@ export interface RouteScreen {
   /** Source files (relative to the project) of the layout and page the path draws. */
   modules: string[]
 }
-
-/** The file a path's copy is written to: '/' → routes/index.html, '/report' → routes/report.html. */
-export const routeHtmlFile = (path: string): string => `routes/${path === '/' ? 'index' : path.slice(1)}.html`
 
 export function routeHtml(root: string, screens: RouteScreen[]): Plugin {
   return {

@@ -16,6 +16,8 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10)
 const ROUNDS = Number(process.env.ROUNDS ?? 2)
 const WORKERS = process.env.WORKERS ?? String(availableParallelism())
+/** BENCH_ONLY=visit,health: only the routes whose names contain one of these words. */
+const ONLY = (process.env.BENCH_ONLY ?? '').split(',').filter(Boolean)
 
 interface Scenario {
   name: string
@@ -85,6 +87,11 @@ async function measure(
 }
 
 function scenarios(ids: number[]): Scenario[] {
+  const all = everyScenario(ids)
+  return ONLY.length ? all.filter((s) => ONLY.some((w) => s.name.includes(w))) : all
+}
+
+function everyScenario(ids: number[]): Scenario[] {
   const r = rng(99)
   const anyString = () => ids[Math.floor(r.next() * ids.length)]
   const c = CONNECTIONS

@@ -1,5 +1,6 @@
 // A crew member commissions a string with no signal (issue 15): the record and its as-installed photo
-// wait on the phone, then arrive exactly once when the signal returns, and the string is installed.
+// wait on the phone (the form's head says so), then arrive exactly once when the signal returns, and
+// the string is installed.
 // Readings inside their limits: 150 MΩ on a 230 V circuit (BS 7671 Table 64 minimum 1.0 MΩ); 24 ms at
 // 1 × and 14 ms at 5 × IΔn (BS EN 61008-1: 300 ms; BS 7671 reg 415.1.1: 40 ms); 4.2 m over a footway
 // (trade-reference §7: at least 3.5 m).
@@ -76,6 +77,11 @@ describe('commissioning on the phone', () => {
       await page.getByTestId('season-save').click()
       await page.getByTestId('season-saved').waitFor({ timeout: 20_000 })
       expect(await page.getByTestId('season-saved').innerText()).toContain('No signal')
+      // The head says a record is waiting, since the season state it shows is still the old one.
+      expect(await page.getByTestId('season-waiting').innerText()).toContain(
+        'A commissioning saved on this phone',
+      )
+      await shot(page, 'season-02-commission-waiting')
       await new Promise((r) => setTimeout(r, 1500))
       expect(await count()).toBe(before)
     } finally {
@@ -95,6 +101,7 @@ describe('commissioning on the phone', () => {
       ),
     ).toBe(true)
     await expect.poll(() => page.getByTestId('outbox-badge').count(), { timeout: 15_000 }).toBe(0)
+    expect(await page.getByTestId('season-waiting').count()).toBe(0)
     await new Promise((r) => setTimeout(r, 1500))
     expect(await count()).toBe(before + 1)
     expect((await app.db('strings').where({ id: stringId }).first('seasonState')).seasonState).toBe(

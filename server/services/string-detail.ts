@@ -7,113 +7,183 @@ import { photoUrls } from './photo-urls'
 import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
 import { exposureNow, stringAssessment, stringForecastRequest } from './string-engine'
 import { cachedForecast } from './forecast-cache'
-import { iso, isoOrNull } from '../../shared/iso-time'
+import { isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
 import { config } from '../config'
 
+/** The place columns read beside the strings row, under names no strings column has. */
+const PLACE = {
+  siteId: 'si.id',
+  siteName: 'si.name',
+  siteClientId: 'si.clientId',
+  clientName: 'c.name',
+  accessNote: 'si.accessNote',
+  switchOn: 'c.switchOn',
+  switchOff: 'c.switchOff',
+  timeZone: 'c.timeZone',
+  circuitRef: 'ci.ref',
+  breakerAmps: 'ci.breakerAmps',
+  breakerCurve: 'ci.breakerCurve',
+  rcdMa: 'ci.rcdMa',
+  supplyVolts: 'ci.supplyVolts',
+  supplyPoint: 'sp.name',
+  supplyPointRef: 'sp.ref',
+  structureKind: 'x.kind',
+  structureRef: 'x.ref',
+  approvedLoad: 'x.approvedLoad',
+} as const
+// Named `place…` in the answer (column names come back camelCase, db.ts), so that they part from the
+// strings row's own columns.
+const PREFIX = 'place'
+const aliased = (name: string) => `${PREFIX}${name[0].toUpperCase()}${name.slice(1)}`
+const TYPE_STAMP = typeStampColumns('st').map((c) =>
+  c.replace(/ as (\w+)$/, (_m, n: string) => ` as ${aliased(n)}`),
+)
+const ALIASES = new Map(
+  [
+    ...Object.keys(PLACE),
+    'typeId',
+    'typeVersion',
+    'typeCreatedAt',
+    'typeUpdatedAt',
+    'certificates',
+    'visits',
+  ].map((n) => [aliased(n), n]),
+)
+
+/** Each certificate of the string, its structure or its circuit, newest first, as a JSON list. */
+const certificatesJson = (db: Db) =>
+  db.raw(`(select json_arrayagg(json_object('id', ce.id, 'kind', ce.kind, 'reference', ce.reference,
+      'doneOn', ce.done_on, 'nextDue', ce.next_due, 'result', ce.result) order by ce.done_on desc)
+    from certificates ce
+    where (ce.subject_type = 'string' and ce.subject_id = s.id)
+      or (ce.subject_type = 'structure' and ce.subject_id = s.structure_id)
+      or (ce.subject_type = 'circuit' and ce.subject_id = s.circuit_id)) as place_certificates`)
+
+/** The last 50 visits, newest first, each with its photos' ids, as a JSON list. */
+const visitsJson = (db: Db) =>
+  db.raw(`(select json_arrayagg(json_object('id', v.id, 'visitedAt', date_format(v.visited_at, '%Y-%m-%dT%H:%i:%s.000Z'),
+      'by', u.name, 'failedFound', v.failed_found, 'replaced', v.replaced, 'fuseReplaced', v.fuse_replaced,
+      'darkOnArrival', v.dark_on_arrival, 'brightLamps', v.bright_lamps, 'statusAfter', v.status_after,
+      'notes', v.notes, 'isolationId', v.isolation_id, 'kind', v.kind,
+      'photoIds', (select json_arrayagg(p.id order by p.id) from photos p where p.visit_id = v.id))
+      order by v.visited_at desc limit ${VISITS_SHOWN})
+    from visits v join users u on u.id = v.user_id
+    where v.string_id = s.id) as place_visits`)
+
+const VISITS_SHOWN = 50
+
 /**
- * The string's site and client, circuit (with its supply point) and structure: one row, one statement
- * (the circuit and structure columns are null when the string has none); and its type, kept per
- * process under the stamp read in that row (type-cache.ts).
+ * The strings row, its site and client, circuit (with its supply point) and structure, its
+ * certificates and its last visits: one statement. The circuit and structure columns are null when the
+ * string has none. Its type is kept per process under the stamp read in the same row (type-cache.ts).
  */
-async function placeOf(
-  db: Db,
-  s: { siteId: number; typeId: number; circuitId: number | null; structureId: number | null },
-) {
-  const r = await db('sites as si')
+async function readString(db: Db, id: number) {
+  const r = await db('strings as s')
+    .join('sites as si', 'si.id', 's.siteId')
     .join('clients as c', 'c.id', 'si.clientId')
-    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
-    .leftJoin('circuits as ci', 'ci.id', db.raw('?', [s.circuitId]))
+    .join('stringTypes as st', 'st.id', 's.typeId')
+    .leftJoin('circuits as ci', 'ci.id', 's.circuitId')
     .leftJoin('supplyPoints as sp', 'sp.id', 'ci.supplyPointId')
-    .leftJoin('structures as x', 'x.id', db.raw('?', [s.structureId]))
-    .where('si.id', s.siteId)
+    .leftJoin('structures as x', 'x.id', 's.structureId')
+    .where('s.id', id)
     .first(
-      'si.id',
-      'si.name',
-      'si.clientId',
-      'c.name as clientName',
-      'si.accessNote',
-      'c.switchOn',
-      'c.switchOff',
-      'c.timeZone',
-      'ci.id as circuitId',
-      'ci.ref as circuitRef',
-      'ci.breakerAmps',
-      'ci.breakerCurve',
-      'ci.rcdMa',
-      'ci.supplyVolts',
-      'sp.name as supplyPoint',
-      'sp.ref as supplyPointRef',
-      'x.id as structureId',
-      'x.kind as structureKind',
-      'x.ref as structureRef',
-      'x.approvedLoad',
-      ...typeStampColumns('st'),
+      's.*',
+      ...Object.entries(PLACE).map(([as, col]) => `${col} as ${aliased(as)}`),
+      ...TYPE_STAMP,
+      certificatesJson(db),
+      visitsJson(db),
     )
-  if (!r) throw notFound('Site')
-  const circuit =
-    r.circuitId == null
-      ? null
-      : {
-          id: r.circuitId as number,
-          ref: r.circuitRef,
-          breakerAmps: r.breakerAmps,
-          breakerCurve: r.breakerCurve,
-          rcdMa: r.rcdMa ?? null,
-          supplyVolts: r.supplyVolts,
-          supplyPoint: r.supplyPoint,
-          supplyPointRef: r.supplyPointRef,
-        }
-  const structure =
-    r.structureId == null
-      ? null
-      : {
-          id: r.structureId as number,
-          kind: r.structureKind,
-          ref: r.structureRef,
-          approvedLoad: r.approvedLoad ?? null,
-        }
-  return { site: r, circuit, structure, type: await typeOf(db, r as TypeStamp) }
+  if (!r) throw notFound('String')
+  // The strings row alone (the estate's editable fields come from it); the rest by its own names.
+  const row: typeof r = {}
+  const place: Record<string, unknown> = {}
+  for (const [k, v] of Object.entries(r)) {
+    const name = ALIASES.get(k)
+    if (name) place[name] = v
+    else row[k] = v
+  }
+  return { row, place: place as unknown as PlaceRow & TypeStamp }
+}
+
+/** The place columns; the circuit's and structure's are read only when the string has one. */
+interface PlaceRow {
+  siteId: number
+  siteName: string
+  siteClientId: number
+  clientName: string
+  accessNote: string | null
+  switchOn: string
+  switchOff: string
+  timeZone: string | null
+  circuitRef: string
+  breakerAmps: number
+  breakerCurve: string
+  rcdMa: number | null
+  supplyVolts: number
+  supplyPoint: string
+  supplyPointRef: string
+  structureKind: string
+  structureRef: string
+  approvedLoad: string | null
+  certificates: unknown
+  visits: unknown
+}
+
+interface VisitJson {
+  id: number
+  visitedAt: string
+  by: string
+  failedFound: number
+  replaced: number
+  fuseReplaced: number | boolean
+  darkOnArrival: number | boolean
+  brightLamps: number
+  statusAfter: StringDetail['visits'][number]['statusAfter']
+  notes: string | null
+  isolationId: number | null
+  kind: StringDetail['visits'][number]['kind']
+  photoIds: number[] | string | null
 }
 
 /** The string page; `row` is the strings row as read (the estate's editable fields come from it). */
 export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
-  const s = await db('strings').where({ id }).first()
-  if (!s) throw notFound('String')
-  const { site, circuit, structure, type } = await placeOf(db, s)
-  const certificates = await db('certificates')
-    .where((w) => {
-      w.where({ subjectType: 'string', subjectId: id })
-      if (structure) w.orWhere({ subjectType: 'structure', subjectId: structure.id })
-      if (circuit) w.orWhere({ subjectType: 'circuit', subjectId: circuit.id })
-    })
-    .orderBy('doneOn', 'desc')
-    .select('id', 'kind', 'reference', 'doneOn', 'nextDue', 'result')
-  // Each visit's photos in the same statement, as a JSON list of ids.
-  const visits = await db('visits as v')
-    .join('users as u', 'u.id', 'v.userId')
-    .where('v.stringId', id)
-    .orderBy('v.visitedAt', 'desc')
-    .limit(50)
-    .select(
-      'v.id',
-      'v.visitedAt',
-      'u.name as by',
-      'v.failedFound',
-      'v.replaced',
-      'v.fuseReplaced',
-      'v.darkOnArrival',
-      'v.brightLamps',
-      'v.statusAfter',
-      'v.notes',
-      'v.isolationId',
-      'v.kind',
-      {
-        photoIds: db('photos as p')
-          .whereRaw('p.visit_id = v.id')
-          .select(db.raw('json_arrayagg(p.id order by p.id)')),
-      },
-    )
+  const { row: s, place: p } = await readString(db, id)
+  const type = await typeOf(db, p)
+  const site = {
+    id: p.siteId,
+    name: p.siteName,
+    clientId: p.siteClientId,
+    clientName: p.clientName,
+    accessNote: p.accessNote,
+    switchOn: p.switchOn,
+    switchOff: p.switchOff,
+    timeZone: p.timeZone,
+  }
+  const circuit =
+    s.circuitId == null
+      ? null
+      : {
+          id: s.circuitId as number,
+          ref: p.circuitRef,
+          breakerAmps: p.breakerAmps,
+          breakerCurve: p.breakerCurve,
+          rcdMa: p.rcdMa ?? null,
+          supplyVolts: p.supplyVolts,
+          supplyPoint: p.supplyPoint,
+          supplyPointRef: p.supplyPointRef,
+        }
+  const structure =
+    s.structureId == null
+      ? null
+      : {
+          id: s.structureId as number,
+          kind: p.structureKind,
+          ref: p.structureRef,
+          approvedLoad: p.approvedLoad ?? null,
+        }
+  const certificates = jsonColumn<StringDetail['certificates']>(p.certificates, [])
+  const visits = jsonColumn<VisitJson[]>(p.visits, [])
   const burn = burnHoursPerDay(site.switchOn, site.switchOff)
   const assessed = stringAssessment(type, s)
   // The risk rule is judged by the forecast job, not by assess: its reason says which rule fired.
@@ -184,7 +254,6 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
     forecastDates: { firstFailure: fc.dates?.failures[0] ?? null, dark: fc.dates?.medianDark ?? null },
     visits: visits.map(({ photoIds, ...v }) => ({
       ...v,
-      visitedAt: iso(v.visitedAt),
       fuseReplaced: !!v.fuseReplaced,
       darkOnArrival: !!v.darkOnArrival,
       notes: v.notes ?? null,

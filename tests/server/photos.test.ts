@@ -83,6 +83,16 @@ describe('uploading visit photos', () => {
     expect(listed.body.items.map((i: { id: number }) => i.id)).toEqual(
       expect.arrayContaining(rows.map((r) => r.id)),
     )
+    // The string page's history shows them under their visit, in the order they were stored.
+    const { stringId } = await t.db('visits').where({ id: visitId }).first('stringId')
+    const page = await request(t.app)
+      .get(`/api/v1/strings/${stringId}`)
+      .set('Authorization', await bearer('manager'))
+    const shown = page.body.visits.find((v: { id: number }) => v.id === visitId)
+    expect(shown.photos.map((p: { id: number }) => p.id)).toEqual(
+      expect.arrayContaining(rows.map((r) => r.id).sort((a, b) => a - b)),
+    )
+    expect(shown.photos[0].thumbUrl).toBe(`/api/v1/photos/${shown.photos[0].id}/thumb`)
   })
 
   it('reads capture time and GPS from EXIF, turns the image upright, and stores it with no EXIF left', async () => {

@@ -69,7 +69,7 @@ const ON_DEMAND = new RegExp(
 const SRC = resolve(import.meta.dirname, '..', '..', 'src')
 const ENTRY = resolve(SRC, 'main.ts')
 // The public pages people open first (the invitation and password pages are rare, and share the
-// signed-in chunks: they validate with the same schemas).
+// signed-in chunks: the new-password fields and the auth store).
 const PUBLIC_PAGES = new RegExp(
   [
     path('src', 'layouts', String.raw`PublicLayout\.vue$`),

@@ -57,6 +57,28 @@ export default tseslint.config(
     },
   },
   {
+    // Schema modules build zod schemas as they load: a screen (or a plain shared module a screen uses)
+    // takes words, lists and limits from shared/vocab and imports a schema module for its types only
+    // (issue 14: zod was 174 kB of the signed-in shell). The estate forms build on the schemas themselves.
+    files: ['src/**/*.ts', 'src/**/*.vue', 'shared/**/*.ts'],
+    ignores: ['shared/schemas/**', 'src/components/estate/estate-form.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['zod', 'zod/*', '**/schemas/*', '**/schemas'],
+              allowTypeImports: true,
+              message:
+                'import words, lists and limits from shared/vocab; a schema module only with `import type`',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['server/**/*.ts', 'src/**/*.ts', 'src/**/*.vue'],
     rules: { 'no-restricted-imports': ['error', { patterns: [noSeeds] }] },
   },

@@ -3,7 +3,7 @@
 // fails a certificate fails a commissioning too; the mounting height is checked against the
 // clearances of trade-reference §7. The server stores the result; the phone previews it.
 import { judgeReadings, verdict, type Finding, type Readings } from './test-limits'
-import type { ClearancePlace } from './schemas/season'
+import type { ClearancePlace } from './vocab/season'
 
 /**
  * Minimum height over the place, in metres: ≥ 5.2 m over a carriageway (some authorities ask 5.8 m),

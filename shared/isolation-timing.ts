@@ -4,7 +4,7 @@
 // Every figure here is common practice, no source: the guidance we know (EAWR 1989 regs 12–14,
 // HSE HSG85, HSE GS38; from memory) gives the steps and their order but no duration for any. They are set low on purpose, so that a
 // careful, quick electrician never trips them; the reasoning is written beside each one.
-import type { IsolationStep } from './schemas/visits'
+import type { IsolationStep } from './vocab/visits'
 
 export interface StepGap {
   from: IsolationStep

@@ -1,8 +1,8 @@
 // Where a stop on a published run stands after the crew's visits: the one rule the crew's run, the
 // run sheet and the supervisor's board read. The server works it out from the visits logged on the
 // stop's string since the run was published (run-list.ts); nothing here reads a database.
-import { z } from 'zod'
-import { statuses, type StringStatus } from './schemas/string-states'
+import type { StopProgress } from './schemas/runs'
+import type { StringStatus } from './vocab/string-states'
 
 export const stopStates = ['todo', 'done', 'open', 'new_fault'] as const
 export type StopState = (typeof stopStates)[number]
@@ -34,17 +34,6 @@ export interface StopFacts {
   /** Visits logged on the stop's string since the run was published, oldest first. */
   visits: StopVisit[]
 }
-
-export const stopProgress = z.object({
-  state: z.enum(stopStates),
-  /** When the last visit (or the log that closed the stop) was made. */
-  at: z.string().nullable(),
-  /** The string as the last visit left it. */
-  statusAfter: z.enum(statuses).nullable(),
-  lampsOutAfter: z.number().nullable(),
-  visits: z.number(),
-})
-export type StopProgress = z.infer<typeof stopProgress>
 
 /** States a visit can leave a string in that need no more work tonight (its items close: string-items.ts). */
 const SETTLED: readonly StringStatus[] = ['lit', 'watch', 'safe']

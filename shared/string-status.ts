@@ -1,11 +1,9 @@
 // Turns a string's recorded condition into the engine's input and our five state marks (the words
-// are in schemas/string-states.ts; what a visit does to the condition is in visit-rules.ts).
+// are in vocab/string-states.ts; what a visit does to the condition is in visit-rules.ts).
 import type { AssessRequest, ForecastRequest } from './schemas/engine'
-import type { StringStatus } from './schemas/string-states'
+import type { StringStatus } from './vocab/string-states'
 import { assess } from './engine/assess'
 import { addExposure } from './engine/forecast'
-
-export { statuses, statusLabel, type StringStatus } from './schemas/string-states'
 
 /** One lamp class of a type as recorded; a null life setting means the type's. */
 export interface ClassSpec {

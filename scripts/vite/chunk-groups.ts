@@ -6,8 +6,8 @@
 //   loaded with the entry by the sign-in page, the public report page and the signed-in layout alike.
 // - "public": what the public pages (sign-in, invitations, password reset, fault report, not found)
 //   share beyond the entry; a few kB, one request instead of ten.
-// - "shell": what the signed-in layout and src/signed-in.ts need (stores, outbox, schemas, dialogs,
-//   menus, the bell) and what the crew's first screens (run, map) share with other pages: a crew's
+// - "shell": what the signed-in layout and src/signed-in.ts need (stores, outbox, the words of
+//   shared/vocab, dialogs, menus, the bell) and what the crew's first screens (run, map) share with other pages: a crew's
 //   run is its page chunk plus this one.
 // - "office": what the other signed-in pages share among themselves (tables, selects, pickers).
 //
@@ -43,11 +43,15 @@ const BASE_PARTS = [
 ]
 const BASE = new RegExp(BASE_PARTS.join('|'))
 
-/** Large libraries one feature needs: never folded into a shared chunk. */
+/**
+ * Large libraries one feature needs: never folded into a shared chunk. zod among them: screens take
+ * their words and lists from shared/vocab, and only the estate forms build from a schema (their
+ * defaults), so zod comes with the pages that open those forms, not with the shell.
+ */
 const FEATURE = new RegExp(
   path(
     'node_modules',
-    '(leaflet|@vue-leaflet|echarts|zrender|vue-echarts|jsqr|qrcode|pdfmake|pdfkit|pmtiles|protomaps-leaflet|@protomaps)',
+    '(leaflet|@vue-leaflet|echarts|zrender|vue-echarts|jsqr|qrcode|pdfmake|pdfkit|pmtiles|protomaps-leaflet|@protomaps|zod)',
     '',
   ),
 )
@@ -65,7 +69,7 @@ const ON_DEMAND = new RegExp(
 const SRC = resolve(import.meta.dirname, '..', '..', 'src')
 const ENTRY = resolve(SRC, 'main.ts')
 // The public pages people open first (the invitation and password pages are rare, and share the
-// signed-in chunks: they validate with the same schemas).
+// signed-in chunks: the new-password fields and the auth store).
 const PUBLIC_PAGES = new RegExp(
   [
     path('src', 'layouts', String.raw`PublicLayout\.vue$`),

@@ -6,7 +6,8 @@ import { renderMail } from '../mail/templates'
 import { publicLink } from '../public-url'
 import { plural } from '../../shared/number-format'
 import { formatDay, formatInZone } from '../../shared/local-time'
-import { certificateKindLabel, type ReminderStage } from '../../shared/schemas/certificates'
+import type { ReminderStage } from '../../shared/schemas/certificates'
+import { certificateKindLabel } from '../../shared/vocab/certificates'
 
 export interface Reminder {
   certificateId: number

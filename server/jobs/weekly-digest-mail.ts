@@ -3,7 +3,7 @@
 import type { Config } from '../config'
 import type { MailMessage } from '../mail/mailer'
 import { formatDay, formatInZone } from '../../shared/local-time'
-import { certificateKindLabel } from '../../shared/schemas/certificates'
+import { certificateKindLabel } from '../../shared/vocab/certificates'
 import type { Digest, DigestClient } from './weekly-digest'
 import { publicBaseUrl } from '../public-url'
 import { plural } from '../../shared/number-format'

@@ -3,7 +3,7 @@
 import type { RequestHandler } from 'express'
 import multer from 'multer'
 import { HttpError } from '../errors'
-import { CERTIFICATE_DOCUMENT_FIELD, CERTIFICATE_DOCUMENT_MAX_MB } from '../../shared/schemas/certificates'
+import { CERTIFICATE_DOCUMENT_FIELD, CERTIFICATE_DOCUMENT_MAX_MB } from '../../shared/vocab/certificates'
 import { uploadError } from './upload'
 
 const parse = multer({

@@ -4,7 +4,7 @@ import type { RequestHandler } from 'express'
 import multer from 'multer'
 import type { Config } from '../config'
 import { HttpError, badRequest } from '../errors'
-import { MAX_PHOTOS_PER_UPLOAD, PHOTO_FIELD } from '../../shared/schemas/photos'
+import { MAX_PHOTOS_PER_UPLOAD, PHOTO_FIELD } from '../../shared/vocab/photos'
 
 const MB = 1024 * 1024
 

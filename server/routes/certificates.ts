@@ -1,8 +1,6 @@
 import { office, safetyOfficers } from '../../shared/roles'
 import { idParam } from '../../shared/schemas/common'
 import {
-  CERTIFICATE_DOCUMENT_FIELD,
-  CERTIFICATE_DOCUMENT_MAX_MB,
   certificateBody,
   certificateCreated,
   certificateDocumentBody,
@@ -12,6 +10,7 @@ import {
   subjectList,
   subjectQuery,
 } from '../../shared/schemas/certificates'
+import { CERTIFICATE_DOCUMENT_FIELD, CERTIFICATE_DOCUMENT_MAX_MB } from '../../shared/vocab/certificates'
 import { defineRoute, type RouteDef } from '../route-table'
 import { listCertificates, recordCertificate } from '../services/certificates'
 import { searchSubjects } from '../services/certificate-subjects'

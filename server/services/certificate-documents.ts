@@ -9,7 +9,7 @@ import type { Db } from '../db'
 import type { FileStore } from '../files/index'
 import { HttpError, badRequest, notFound } from '../errors'
 import { iso } from '../../shared/iso-time'
-import { certificateDocumentTypes } from '../../shared/schemas/certificates'
+import { certificateDocumentTypes } from '../../shared/vocab/certificates'
 
 type DocType = (typeof certificateDocumentTypes)[number]
 const EXT: Record<DocType, string> = { 'application/pdf': 'pdf', 'image/jpeg': 'jpg', 'image/png': 'png' }

@@ -4,7 +4,7 @@
 import type { Db } from '../db'
 import type { QueueFilter } from './queue/list'
 import { listQueue } from './queue/list'
-import { safetyQueueKinds } from '../../shared/schemas/certificates'
+import { safetyQueueKinds } from '../../shared/vocab/certificates'
 import { forbidden } from '../errors'
 
 export async function safetyQueuePage(db: Db, f: QueueFilter & { page: number; pageSize: number }) {

@@ -7,7 +7,7 @@ import { syncCertificateItems } from './queue/certificates'
 import { iso, isoDay } from '../../shared/iso-time'
 import { subjectLabels } from './certificate-subjects'
 import { latestDocuments } from './certificate-documents'
-import { kindsForSubject } from '../../shared/schemas/certificates'
+import { kindsForSubject } from '../../shared/vocab/certificates'
 
 const DAY = 86_400_000
 

@@ -4,7 +4,7 @@
 import { createRequire } from 'node:module'
 import { dirname, resolve, sep } from 'node:path'
 import { formatDay } from '../../shared/local-time'
-import { statusLabel, statuses } from '../../shared/schemas/string-states'
+import { statusLabel, statuses } from '../../shared/vocab/string-states'
 import type { ClientReport } from '../../shared/schemas/client-report'
 
 type Node = Record<string, unknown> | string

@@ -7,12 +7,8 @@
 //   not_safe  — still a hazard: the item stays open as an emergency and its reports read "in hand".
 import type { Db } from '../db'
 import { conflict, notFound } from '../errors'
-import {
-  emergencyOutcomeLabel,
-  type EmergencyLog,
-  type EmergencyLogBody,
-  type EmergencyOutcome,
-} from '../../shared/schemas/report-work'
+import type { EmergencyLog, EmergencyLogBody } from '../../shared/schemas/report-work'
+import { emergencyOutcomeLabel, type EmergencyOutcome } from '../../shared/vocab/report-work'
 import { iso } from '../../shared/iso-time'
 import { API_PREFIX } from '../openapi'
 import { audit } from './audit'

@@ -1,12 +1,8 @@
 import type { Knex } from 'knex'
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
-import {
-  REVIEW_NOTE_MIN,
-  type Finding,
-  type IsolationAudit,
-  type IsolationQuery,
-} from '../../shared/schemas/isolations'
+import type { Finding, IsolationAudit, IsolationQuery } from '../../shared/schemas/isolations'
+import { REVIEW_NOTE_MIN } from '../../shared/vocab/isolations'
 import { isolationFindings } from './isolation-findings'
 import { noticeIsolationRejected } from './notice-producers'
 import { iso, isoOrNull } from '../../shared/iso-time'

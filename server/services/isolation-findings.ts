@@ -1,7 +1,7 @@
 // What a safety officer looks for in an isolation record (safe isolation per Electricity at Work
 // Regulations 1989 regs 12–14, HSE HSG85; testers to HSE GS38; RCD test after work — trade-reference §6).
 import type { Finding } from '../../shared/schemas/isolations'
-import { isolateSteps, restoreSteps, stepLabel, type IsolationStep } from '../../shared/schemas/visits'
+import { isolateSteps, restoreSteps, stepLabel, type IsolationStep } from '../../shared/vocab/visits'
 import { STEP_GAPS, TEST_SEQUENCE_MIN_SECONDS } from '../../shared/isolation-timing'
 
 interface Record {

@@ -1,6 +1,7 @@
 import type { Db } from '../db'
 import { badRequest, notFound } from '../errors'
-import { isolateSteps, isolationSteps, restoreSteps, type IsolationBody } from '../../shared/schemas/visits'
+import type { IsolationBody } from '../../shared/schemas/visits'
+import { isolateSteps, isolationSteps, restoreSteps } from '../../shared/vocab/visits'
 import { iso } from '../../shared/iso-time'
 import { writeOnce } from './keyed-write'
 

@@ -5,7 +5,7 @@
 // stamped is not missed. A write stamped long before its commit (a large import), or by an app server
 // whose clock runs seconds behind, could still slip past that margin: a full read every POSITIONS_FULL_MS puts such a row right.
 import type { Db } from '../db'
-import { URGENCY_ORDER } from '../../shared/schemas/map-view'
+import { URGENCY_ORDER } from '../../shared/vocab/map-view'
 
 /** How old a zoomed-out mark's state may be. */
 export const POSITIONS_TTL_MS = 5_000

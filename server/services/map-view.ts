@@ -1,13 +1,15 @@
-// The map's compact answer (shared/schemas/map-view.ts). Below MAP_DETAIL_ZOOM, or with more than
-// MAP_MAX_ITEMS strings in the box, strings are grouped on a fixed grid of squares about MAP_CELL_PX
-// screen pixels across at that zoom (fixed to the globe, not to the box, so a pan keeps the same
-// groups); a square holding one string sends that string, read fresh. The grouping works from each
-// process's copy of every live string's position and state (map-positions.ts), at most 5 s old:
-// grouping thousands of rows in SQL for every zoomed-out pan cost ~20 ms of MariaDB per request, this
-// a few ms of JavaScript. The (lat, lng) index serves the street-zoom box.
+// The map's compact answer (shared/schemas/map-view.ts; its limits in shared/vocab/map-view.ts).
+// Below MAP_DETAIL_ZOOM, or with more than MAP_MAX_ITEMS strings in the box, strings are grouped on
+// a fixed grid of squares about MAP_CELL_PX screen pixels across at that zoom (fixed to the globe,
+// not to the box, so a pan keeps the same groups); a square holding one string sends that string,
+// read fresh. The grouping works from each process's copy of every live string's position and state
+// (map-positions.ts), at most 5 s old: grouping thousands of rows in SQL for every zoomed-out pan
+// cost ~20 ms of MariaDB per request, this a few ms of JavaScript. The (lat, lng) index serves the
+// street-zoom box.
 import type { Db } from '../db'
 import { lineOf } from './strings'
-import { MAP_CELL_PX, MAP_DETAIL_ZOOM, MAP_MAX_ITEMS, type MapView } from '../../shared/schemas/map-view'
+import type { MapView } from '../../shared/schemas/map-view'
+import { MAP_CELL_PX, MAP_DETAIL_ZOOM, MAP_MAX_ITEMS } from '../../shared/vocab/map-view'
 import { positions, urgencyCase } from './map-positions'
 
 type Box = [number, number, number, number]

@@ -1,9 +1,9 @@
-// What a new password must be (reset, change, invitation): long enough (shared/schemas/auth.ts
+// What a new password must be (reset, change, invitation): long enough (shared/vocab/auth.ts
 // NEW_PASSWORD_MIN) and not one of the most common passwords nor built from the account's own words
 // (NIST SP 800-63B §5.1.1.2: compare against commonly used values and context-specific words).
 import { readFileSync } from 'node:fs'
 import { badRequest } from '../errors'
-import { NEW_PASSWORD_MIN } from '../../shared/schemas/auth'
+import { NEW_PASSWORD_MIN } from '../../shared/vocab/auth'
 
 const common = new Set(
   readFileSync(new URL('./common-passwords.txt', import.meta.url), 'utf8')

@@ -3,7 +3,7 @@
 // Only these columns are read: no name, e-mail or network hash ever leaves here.
 import type { Db } from '../db'
 import type { ReportNote } from '../../shared/schemas/report-work'
-import { reportOpenStates } from '../../shared/schemas/reports'
+import { reportOpenStates } from '../../shared/vocab/reports'
 import { iso } from '../../shared/iso-time'
 import { reportPhotoUrls } from './report-photos'
 

@@ -4,7 +4,8 @@
 // publishedAt but must not send finished stops back to "to do", so the row's creation is the start.
 import type { Db } from '../db'
 import { iso, isoOrNull } from '../../shared/iso-time'
-import { stopState, type StopProgress, type StopVisit } from '../../shared/stop-progress'
+import { stopState, type StopVisit } from '../../shared/stop-progress'
+import type { StopProgress } from '../../shared/schemas/runs'
 
 export interface ProgressStop {
   id: number

@@ -1,7 +1,8 @@
 import { jsonColumn, type Db } from '../db'
 import { notFound } from '../errors'
 import type { MapItem, StringDetail } from '../../shared/schemas/strings'
-import type { StringStatus, TypeSpec } from '../../shared/string-status'
+import type { TypeSpec } from '../../shared/string-status'
+import type { StringStatus } from '../../shared/vocab/string-states'
 import { burnHoursPerDay } from '../../shared/schedule'
 
 /** A string's drawn line from its JSON column ([lng, lat] points), null for a point string. */

@@ -1,5 +1,5 @@
 import type { AssessRequest, AssessResponse } from '../schemas/engine'
-import type { EngineState } from '../schemas/string-states'
+import type { EngineState } from '../vocab/string-states'
 import { DEFAULT_LIFE_EXPONENT, DEFAULT_REPLACE_AT_RATIO } from './defaults'
 import { lampFactors, lawsRange } from './lamp-laws'
 import { assessLed, isLed } from './led'

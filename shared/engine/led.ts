@@ -3,7 +3,7 @@
 // driver draws constant power P = V_rated · I_rated · PF per lamp, so the input current is
 // P / (V · PF). A failed LED section does not short: it opens its series chain.
 import type { AssessRequest, AssessResponse } from '../schemas/engine'
-import type { EngineState } from '../schemas/string-states'
+import type { EngineState } from '../vocab/string-states'
 import { DEFAULT_DRIVER_TOLERANCE, DEFAULT_LED_POWER_FACTOR } from './defaults'
 import { ISOLATION_CAUTION, type Reason } from './reason-codes'
 import { darkWhere, lamps as lampWord } from './reasons'

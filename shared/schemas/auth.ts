@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { roleSchema } from './common'
+import { NEW_PASSWORD_MIN } from '../vocab/auth'
 
 export const publicUser = z.object({
   id: z.number().int(),
@@ -16,8 +17,6 @@ export const signInBody = z.object({
 })
 export const sessionResponse = z.object({ user: publicUser, token: z.string() })
 export const meResponse = z.object({ user: publicUser })
-/** A new password (invitation, change, reset): at least 12 characters, like the first admin's. */
-export const NEW_PASSWORD_MIN = 12
 export const acceptInviteBody = z.object({
   token: z.string().min(20).max(200),
   password: z.string().min(NEW_PASSWORD_MIN, `Use at least ${NEW_PASSWORD_MIN} characters.`).max(200),

@@ -1,34 +1,12 @@
 import { z } from 'zod'
+import {
+  CERTIFICATE_DOCUMENT_FIELD,
+  CERTIFICATE_DOCUMENT_MAX_MB,
+  certificateDocumentTypes,
+  certificateKinds,
+  subjectTypes,
+} from '../vocab/certificates'
 
-export const certificateKinds = [
-  'platform_exam',
-  'platform_pre_use',
-  'column_structural',
-  'anchor_test',
-  'display_inspection',
-  'rcd_test',
-  'insulation_test',
-] as const
-export const certificateKindLabel: Record<(typeof certificateKinds)[number], string> = {
-  platform_exam: 'Platform thorough examination',
-  platform_pre_use: 'Platform pre-use check',
-  column_structural: 'Column structural test',
-  anchor_test: 'Anchor load test',
-  display_inspection: 'Display in-service inspection',
-  rcd_test: 'RCD test',
-  insulation_test: 'Insulation resistance test',
-}
-export const subjectTypes = ['platform', 'structure', 'string', 'circuit'] as const
-/** Which tests fit which subject: a column or anchor takes a structural test, a circuit an electrical one. */
-export const kindsForSubject: Record<
-  (typeof subjectTypes)[number],
-  readonly (typeof certificateKinds)[number][]
-> = {
-  platform: ['platform_exam', 'platform_pre_use'],
-  structure: ['column_structural', 'anchor_test'],
-  string: ['display_inspection'],
-  circuit: ['rcd_test', 'insulation_test'],
-}
 /** `general`: no intentional delay; `S`: time-delayed (selective). */
 export const rcdTypes = ['general', 'S'] as const
 
@@ -126,9 +104,6 @@ export function reminderStage(daysLeft: number): ReminderStage | null {
   return null
 }
 
-/** The queue kinds a safety officer sees: certificate work (due, failed tests, failed RCDs). */
-export const safetyQueueKinds = ['certificate_due', 'rcd_failed'] as const
-
 /** Finding a subject to record its first certificate: by asset tag, reference or name. */
 export const subjectQuery = z.object({
   q: z.string().trim().min(1).max(60),
@@ -138,10 +113,7 @@ export const subjectList = z.object({
   items: z.array(z.object({ subjectType: z.enum(subjectTypes), subjectId: z.number(), label: z.string() })),
 })
 
-/** The multipart field of a certificate's document, its largest size and the types its bytes may be. */
-export const CERTIFICATE_DOCUMENT_FIELD = 'document'
-export const CERTIFICATE_DOCUMENT_MAX_MB = 10
-export const certificateDocumentTypes = ['application/pdf', 'image/jpeg', 'image/png'] as const
+/** A certificate's document: the multipart field, its largest size and types are in ../vocab/certificates.ts. */
 export const certificateDocumentBody = z.object({
   [CERTIFICATE_DOCUMENT_FIELD]: z
     .unknown()

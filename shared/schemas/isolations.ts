@@ -1,13 +1,13 @@
 import { z } from 'zod'
-import { isolationSteps } from './visits'
-
-export const reviewStates = ['pending', 'approved', 'rejected'] as const
-
-export const ISOLATION_PAGE_SIZE = 20
-/** 'any': records with at least one finding; 'serious': with a serious one. */
-export const findingFilters = ['all', 'any', 'serious'] as const
-/** 'severity': worst finding first (serious, minor, none), then newest; 'newest': by start time. */
-export const isolationSorts = ['severity', 'newest'] as const
+import {
+  ISOLATION_PAGE_SIZE,
+  REVIEW_NOTE_MAX,
+  REVIEW_NOTE_MIN,
+  findingFilters,
+  isolationSorts,
+  reviewStates,
+} from '../vocab/isolations'
+import { isolationSteps } from '../vocab/visits'
 
 export const isolationQuery = z.object({
   review: z.enum([...reviewStates, 'all']).default('pending'),
@@ -69,11 +69,6 @@ export const isolationAuditList = z.object({
     }),
   ),
 })
-
-/** Shortest note that says why: a rejection always needs one, and so does approving a record that
- * has a serious finding (the server checks that against the record's findings). */
-export const REVIEW_NOTE_MIN = 5
-export const REVIEW_NOTE_MAX = 500
 
 export const reviewBody = z
   .object({

@@ -1,8 +1,5 @@
 import { z } from 'zod'
-
-/** Field name of the multipart upload; the form may repeat it up to MAX_PHOTOS_PER_UPLOAD times. */
-export const PHOTO_FIELD = 'photo'
-export const MAX_PHOTOS_PER_UPLOAD = 8
+import { PHOTO_FIELD } from '../vocab/photos'
 
 // Multer fills req.body with text fields only, so the file part is documented here and never required.
 export const photoUploadBody = z.object({

@@ -2,10 +2,7 @@
 // counted on the server so a supervisor's phone never loads thousands of items at once.
 import { z } from 'zod'
 import { queueList, queueQuery } from './queue'
-
-/** Items a page holds at most. */
-export const QUEUE_PAGE_MAX = 100
-export const QUEUE_PAGE_DEFAULT = 50
+import { QUEUE_PAGE_DEFAULT, QUEUE_PAGE_MAX } from '../vocab/queue'
 
 export const queuePageQuery = queueQuery.extend({
   page: z.coerce.number().int().min(1, 'Pages count from 1.').default(1),

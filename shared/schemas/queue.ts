@@ -1,34 +1,8 @@
 import { z } from 'zod'
-import { statusLabel, statusSchema, type StringStatus } from './string-states'
-import { reportClosedStates } from './reports'
+import { statusSchema } from './string-states'
+import { queueKinds } from '../vocab/queue'
+import { reportClosedStates } from '../vocab/reports'
 import { reportNote } from './report-work'
-
-export const queueKinds = [
-  'replace_now',
-  'dark',
-  'forecast_dark',
-  'public_report',
-  'certificate_due',
-  'rcd_failed',
-  'installation',
-  'take_down',
-] as const
-export type QueueKind = (typeof queueKinds)[number]
-export const queueKindLabel: Record<QueueKind, string> = {
-  replace_now: statusLabel.replace,
-  dark: 'Dark string',
-  forecast_dark: 'Forecast to go dark',
-  public_report: 'Public report',
-  certificate_due: 'Certificate due',
-  rcd_failed: 'RCD test failed',
-  installation: 'Installation',
-  take_down: 'Take-down',
-}
-
-/** The kind of item a string in this state needs; the other states need none. */
-export const stringStatusKind = { replace: 'replace_now', dark: 'dark' } as const satisfies Partial<
-  Record<StringStatus, QueueKind>
->
 
 export const queueItemStates = ['open', 'snoozed', 'closed', 'merged'] as const
 

@@ -1,6 +1,7 @@
 // The reporter's words on the work (queue item, run stop, string page) and the crew's log of an
 // emergency stop. Nothing personal: a report note never carries the reporter's name or address.
 import { z } from 'zod'
+import { emergencyOutcomes } from '../vocab/report-work'
 
 /** A waiting public report as crews and supervisors see it. */
 export const reportNote = z.object({
@@ -26,14 +27,6 @@ export const rankPriority = (i: { severity: string; score: number }) =>
 /** Emergency first, then score, highest first. */
 export const byRank = (a: { severity: string; score: number }, b: { severity: string; score: number }) =>
   rankPriority(b) - rankPriority(a)
-
-export const emergencyOutcomes = ['fixed', 'made_safe', 'not_safe'] as const
-export type EmergencyOutcome = (typeof emergencyOutcomes)[number]
-export const emergencyOutcomeLabel: Record<EmergencyOutcome, string> = {
-  fixed: 'Made safe and fixed: nothing left to do',
-  made_safe: 'Made safe, needs more work',
-  not_safe: 'Not made safe yet: still a hazard',
-}
 
 export const emergencyLogBody = z.object({
   found: z.string().trim().min(3, 'Say what you found.').max(2000),

@@ -1,18 +1,7 @@
 import { z } from 'zod'
 import { DESCRIPTION_MIN, REF_PATTERN, hasPlace, reportLimits as max, reportMessages } from '../report-rules'
-import { reportStates } from '../report-states'
-
-// The states and their words live in ../report-states.ts (plain, for the public page); re-exported
-// here for the server and the signed-in screens that already import them with the schemas.
-export {
-  reportClosedStates,
-  reportOpenStates,
-  reportStateLabel,
-  reportStateMeaning,
-  reportStates,
-  type ReportClosedState,
-  type ReportState,
-} from '../report-states'
+// The states and their words are in ../vocab/reports.ts (plain, for the public page).
+import { reportStates } from '../vocab/reports'
 
 export const reportBody = z
   .object({

@@ -1,9 +1,22 @@
 import { z } from 'zod'
 import { hhmm } from './common'
-import { queueKinds } from './queue'
+import { queueKinds } from '../vocab/queue'
 import { reportNote } from './report-work'
 import { needLine } from './stock'
-import { stopProgress } from '../stop-progress'
+import { statuses } from '../vocab/string-states'
+import { stopStates } from '../stop-progress'
+
+/** Where a stop stands after tonight's visits (../stop-progress.ts works it out). */
+export const stopProgress = z.object({
+  state: z.enum(stopStates),
+  /** When the last visit (or the log that closed the stop) was made. */
+  at: z.string().nullable(),
+  /** The string as the last visit left it. */
+  statusAfter: z.enum(statuses).nullable(),
+  lampsOutAfter: z.number().nullable(),
+  visits: z.number(),
+})
+export type StopProgress = z.infer<typeof stopProgress>
 
 export const planBody = z.object({
   date: z.iso.date(),

@@ -1,24 +1,11 @@
 // The season of a string: its state from the store to the street and back, and the records that move
 // it — commissioning (installed and tested before switch-on), marking in service, take-down into a
-// store bin, and the pre-season inspection in store. One vocabulary for the API and the client.
+// store bin, and the pre-season inspection in store. The states and their words are in ../vocab/season.ts.
 import { z } from 'zod'
 import { readingsSchema, findingSchema } from './certificates'
+import { clearancePlaces, conditions, seasonStates } from '../vocab/season'
 
-export const seasonStates = ['in_store', 'installed', 'in_service', 'taken_down', 'needs_repair'] as const
-export type SeasonState = (typeof seasonStates)[number]
 export const seasonStateSchema = z.enum(seasonStates)
-
-export const seasonStateLabel: Record<SeasonState, string> = {
-  in_store: 'In store',
-  installed: 'Installed',
-  in_service: 'In service',
-  taken_down: 'Taken down',
-  needs_repair: 'Needs repair',
-}
-
-/** Where a string hangs over: the clearance it needs follows the place (trade-reference §7). */
-export const clearancePlaces = ['carriageway', 'footway'] as const
-export type ClearancePlace = (typeof clearancePlaces)[number]
 
 const isoInstant = z.iso.datetime({ offset: true })
 const count = z.number().int().min(0).max(10000)
@@ -76,7 +63,6 @@ export const commissioningResult = z.object({
 })
 export type CommissioningResult = z.infer<typeof commissioningResult>
 
-export const conditions = ['good', 'worn', 'damaged'] as const
 export const takeDownBody = z.object({
   lampsOut: count,
   damage: z.string().trim().max(500).optional(),

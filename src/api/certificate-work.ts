@@ -2,11 +2,11 @@
 // and the certificate items in the queue (GET /queue by kind; safety officers see only these).
 import type { z } from 'zod'
 import type { certificateDocumentSaved, subjectList } from '../../shared/schemas/certificates'
-import { CERTIFICATE_DOCUMENT_FIELD, safetyQueueKinds } from '../../shared/schemas/certificates'
+import { CERTIFICATE_DOCUMENT_FIELD, safetyQueueKinds } from '../../shared/vocab/certificates'
 import { API_BASE, http, request } from './http'
 import type { QueueItem } from './queue'
 
-export { CERTIFICATE_DOCUMENT_MAX_MB, certificateDocumentTypes } from '../../shared/schemas/certificates'
+export { CERTIFICATE_DOCUMENT_MAX_MB, certificateDocumentTypes } from '../../shared/vocab/certificates'
 
 export type CertificateSubject = z.infer<typeof subjectList>['items'][number]
 export type CertificateDocument = z.infer<typeof certificateDocumentSaved>

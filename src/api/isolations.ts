@@ -1,12 +1,7 @@
 // The safety officer's isolation records: one page at a time, filtered and ordered on the server.
 import type { z } from 'zod'
-import type {
-  findingFilters,
-  isolationAudit,
-  isolationAuditList,
-  IsolationQuery,
-  isolationSorts,
-} from '../../shared/schemas/isolations'
+import type { isolationAudit, isolationAuditList, IsolationQuery } from '../../shared/schemas/isolations'
+import type { findingFilters, isolationSorts } from '../../shared/vocab/isolations'
 import { http } from './http'
 
 export {
@@ -15,8 +10,8 @@ export {
   REVIEW_NOTE_MIN,
   findingFilters,
   isolationSorts,
-} from '../../shared/schemas/isolations'
-export { stepLabel, isolateSteps, restoreSteps, isolationSteps } from '../../shared/schemas/visits'
+} from '../../shared/vocab/isolations'
+export { stepLabel, isolateSteps, restoreSteps, isolationSteps } from '../../shared/vocab/visits'
 
 export type IsolationRecord = z.infer<typeof isolationAudit>
 export type IsolationList = z.infer<typeof isolationAuditList>

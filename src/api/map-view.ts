@@ -2,9 +2,10 @@
 // own items and groups.
 import { http } from './http'
 import type { Bbox, MapItem } from './strings'
-import { URGENCY_ORDER, type MapView } from '../../shared/schemas/map-view'
+import type { MapView } from '../../shared/schemas/map-view'
+import { URGENCY_ORDER } from '../../shared/vocab/map-view'
 
-export { MAP_DETAIL_ZOOM, URGENCY_ORDER } from '../../shared/schemas/map-view'
+export { MAP_DETAIL_ZOOM, URGENCY_ORDER } from '../../shared/vocab/map-view'
 
 /** A group of strings the server drew as one mark: where, how many, and the most urgent state in it. */
 export interface MapCluster {

@@ -2,7 +2,7 @@ import type { z } from 'zod'
 import type { overdueReport } from '../../shared/schemas/overdue'
 import { http } from './http'
 
-export { queueKindLabel } from '../../shared/schemas/queue'
+export { queueKindLabel } from '../../shared/vocab/queue'
 
 export type OverdueReport = z.infer<typeof overdueReport>
 export type OverdueClient = OverdueReport['clients'][number]

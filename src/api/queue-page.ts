@@ -4,7 +4,7 @@ import type { queuePage } from '../../shared/schemas/queue-page'
 import { http } from './http'
 import type { QueueFilter } from './queue'
 
-export { QUEUE_PAGE_DEFAULT, QUEUE_PAGE_MAX } from '../../shared/schemas/queue-page'
+export { QUEUE_PAGE_DEFAULT, QUEUE_PAGE_MAX } from '../../shared/vocab/queue'
 
 export type QueuePage = z.infer<typeof queuePage>
 

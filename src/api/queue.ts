@@ -1,9 +1,10 @@
 import type { z } from 'zod'
-import type { queueItem, queueKinds, queueList, queueQuery, refreshResult } from '../../shared/schemas/queue'
-import type { ReportClosedState } from '../../shared/schemas/reports'
+import type { queueItem, queueList, queueQuery, refreshResult } from '../../shared/schemas/queue'
+import type { queueKinds } from '../../shared/vocab/queue'
+import type { ReportClosedState } from '../../shared/vocab/reports'
 import { http } from './http'
 
-export { queueKindLabel, queueKinds } from '../../shared/schemas/queue'
+export { queueKindLabel, queueKinds } from '../../shared/vocab/queue'
 
 export type QueueItem = z.infer<typeof queueItem>
 export type QueueKind = (typeof queueKinds)[number]

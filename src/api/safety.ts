@@ -3,14 +3,14 @@ import type { z } from 'zod'
 import type {
   certificateBody,
   certificateCreated,
-  certificateKinds,
   certificateList,
   certificateQuery,
   certificateRow,
 } from '../../shared/schemas/certificates'
+import type { certificateKinds } from '../../shared/vocab/certificates'
 import { http } from './http'
 
-export { certificateKindLabel, certificateKinds } from '../../shared/schemas/certificates'
+export { certificateKindLabel, certificateKinds } from '../../shared/vocab/certificates'
 
 export type CertificateRecord = z.infer<typeof certificateRow>
 export type CertificateKind = (typeof certificateKinds)[number]

@@ -2,7 +2,8 @@
 // a send after a dropped connection without recording anything twice.
 import type { z } from 'zod'
 import type { IsolationBody, VisitBody, isolationResult, visitResult } from '../../shared/schemas/visits'
-import { PHOTO_FIELD, type PhotoList } from '../../shared/schemas/photos'
+import type { PhotoList } from '../../shared/schemas/photos'
+import { PHOTO_FIELD } from '../../shared/vocab/photos'
 import { request, type RequestOptions } from './http'
 
 export type VisitResult = z.infer<typeof visitResult>

@@ -1,6 +1,6 @@
 // The visit form as the phone keeps it: in the drafts store while it is typed, and inside a queued
 // visit so a refused save reopens exactly as it was. The form (components/visit/) builds it.
-import type { IsolationStep } from '../../shared/schemas/visits'
+import type { IsolationStep } from '../../shared/vocab/visits'
 
 export interface StepStamp {
   /** Device time with its offset, stamped when the button was tapped. */

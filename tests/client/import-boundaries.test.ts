@@ -8,6 +8,13 @@ async function refused(filePath: string, from: string): Promise<string[]> {
   const [result] = await eslint.lintText(`import { x } from '${from}'\nexport const y = x\n`, { filePath })
   return result.messages.filter((m) => m.ruleId === 'no-restricted-imports').map((m) => m.message)
 }
+/** The zod ban: a line of imports as if it stood in `filePath`, and what the rule refuses. */
+async function zodRefused(filePath: string, code: string): Promise<string[]> {
+  const [result] = await eslint.lintText(`${code}\nexport type Y = unknown\n`, { filePath })
+  return result.messages
+    .filter((m) => m.ruleId === '@typescript-eslint/no-restricted-imports')
+    .map((m) => m.message)
+}
 
 // Loading the lint config takes seconds on a busy machine; this is no speed check.
 describe('import boundaries', { timeout: 60_000 }, () => {
@@ -30,5 +37,18 @@ describe('import boundaries', { timeout: 60_000 }, () => {
   it('keeps shared/ free of client and server code', async () => {
     expect(await refused('shared/probe.ts', '../server/db')).toHaveLength(1)
     expect(await refused('shared/probe.ts', '../src/dates')).toHaveLength(1)
+  })
+
+  it('keeps zod and the schema modules out of the screens but for their types (issue 14)', async () => {
+    const schema = `import { seasonStateSchema } from '../../../shared/schemas/season'\nvoid seasonStateSchema`
+    expect(await zodRefused('src/components/season/probe.ts', schema)).toHaveLength(1)
+    expect(await zodRefused('src/pages/run/probe.ts', `import { z } from 'zod'\nvoid z`)).toHaveLength(1)
+    expect(await zodRefused('shared/vocab/probe.ts', `import { z } from 'zod'\nvoid z`)).toHaveLength(1)
+    // Types cost nothing at run time; the words come from shared/vocab; the schemas build on zod.
+    const types = `import type { z } from 'zod'\nimport type { seasonGlance } from '../../../shared/schemas/season'`
+    expect(await zodRefused('src/components/season/probe.ts', types)).toEqual([])
+    const words = `import { seasonStates } from '../../../shared/vocab/season'\nvoid seasonStates`
+    expect(await zodRefused('src/components/season/probe.ts', words)).toEqual([])
+    expect(await zodRefused('shared/schemas/probe.ts', `import { z } from 'zod'\nvoid z`)).toEqual([])
   })
 })

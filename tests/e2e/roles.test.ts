@@ -2,7 +2,7 @@
 // and follow it without an account: in a real browser against the real server and database.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { chromium, type Browser, type BrowserContext } from 'playwright-core'
-import { reportStateLabel } from '../../shared/schemas/reports'
+import { reportStateLabel } from '../../shared/vocab/reports'
 import { CHROMIUM, CHROMIUM_FLAGS, PHONE, shot, signIn, startApp, type E2eApp } from './helpers'
 
 // Homes as the product brief sets them (handbook product-brief.md, "Screens by role"); titles are the

@@ -9,7 +9,7 @@ import { randomUUID } from 'node:crypto'
 import { makeTestApp, type TestApp } from './helpers'
 import { isolationFindings } from '../../server/services/isolation-findings'
 
-// Stamps in seconds after the first step, in the order of shared/schemas/visits.ts isolationSteps:
+// Stamps in seconds after the first step, in the order of shared/vocab/visits.ts isolationSteps:
 // identify, isolate, lock_off, prove_tester, test_dead, reprove_tester, remove_lock, re_energise,
 // functional_check, rcd_test.
 const ORDER = [

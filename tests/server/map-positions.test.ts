@@ -10,7 +10,7 @@ import {
   positions,
   type Positions,
 } from '../../server/services/map-positions'
-import { URGENCY_ORDER } from '../../shared/schemas/map-view'
+import { URGENCY_ORDER } from '../../shared/vocab/map-view'
 
 let t: TestApp
 const ids: number[] = []

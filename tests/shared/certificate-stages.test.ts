@@ -2,7 +2,8 @@
 // next due date and on the day itself. The thresholds are common practice, no source; each boundary
 // below is counted by hand.
 import { describe, expect, it } from 'vitest'
-import { kindsForSubject, reminderStage } from '../../shared/schemas/certificates'
+import { reminderStage } from '../../shared/schemas/certificates'
+import { kindsForSubject } from '../../shared/vocab/certificates'
 
 describe('reminderStage', () => {
   it('is null more than 30 days out and the 30-day stage from 30 down to 15 days', () => {

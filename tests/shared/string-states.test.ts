@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { assess } from '../../shared/engine'
 import { assessResponseSchema } from '../../shared/schemas/engine'
-import { queueKindLabel, queueKinds, stringStatusKind } from '../../shared/schemas/queue'
-import { engineStates, statusLabel, statusSchema, statuses } from '../../shared/schemas/string-states'
+import { queueKindLabel, queueKinds, stringStatusKind } from '../../shared/vocab/queue'
+import { statusSchema } from '../../shared/schemas/string-states'
+import { engineStates, statusLabel, statuses } from '../../shared/vocab/string-states'
 import {
   engineInput,
   exposureAfter,

@@ -1,7 +1,7 @@
 // What a supervisor does to queue items: snooze, wake early, merge duplicates, close without a visit. The routes
 // run these inside audited(), so each change and its audit row commit together.
 import { badRequest, conflict, notFound } from '../../errors'
-import type { ReportClosedState } from '../../../shared/schemas/reports'
+import type { ReportClosedState } from '../../../shared/vocab/reports'
 import { ACTIVE, closeItems } from './items'
 import { markReportsInHand, settleReportsOfItems } from './report-states'
 import type { Db } from '../../db'

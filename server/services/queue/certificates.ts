@@ -11,7 +11,8 @@ import { endOfLocalDay, formatDay, localDay } from '../../../shared/local-time'
 import { clientZones } from '../zones'
 import { config } from '../../config'
 import { subjectIds, subjectLabels, subjectPlaces } from '../certificate-subjects'
-import { certificateKindLabel, CERTIFICATE_NOTICE_DAYS } from '../../../shared/schemas/certificates'
+import { CERTIFICATE_NOTICE_DAYS } from '../../../shared/schemas/certificates'
+import { certificateKindLabel } from '../../../shared/vocab/certificates'
 
 const DAY = 86_400_000
 /** Kinds whose failure leaves a live circuit without proven protection: emergency work. */

@@ -1,8 +1,8 @@
 // Opening and closing queue items. One item is open per kind and subject (its open_key); every close
 // goes through closeItems, which also moves a public report out of `received`, so no refresh reopens it.
 import type { Db } from '../../db'
-import type { QueueKind } from '../../../shared/schemas/queue'
-import type { ReportState } from '../../../shared/schemas/reports'
+import type { QueueKind } from '../../../shared/vocab/queue'
+import type { ReportState } from '../../../shared/vocab/reports'
 import { dueAfter } from '../../../shared/local-time'
 import { settleReportsOfItems } from './report-states'
 

@@ -1,5 +1,6 @@
 // The queue as supervisors see it: waiting work with its place, client, report and score.
-import type { QueueItem, QueueKind } from '../../../shared/schemas/queue'
+import type { QueueItem } from '../../../shared/schemas/queue'
+import type { QueueKind } from '../../../shared/vocab/queue'
 import { scoreItem } from './score'
 import type { Db } from '../../db'
 import { iso, isoOrNull } from '../../../shared/iso-time'

@@ -3,7 +3,7 @@
 // queues its "fixed" e-mail in the same commit. The queue service calls these where the change happens.
 import type { Db } from '../../db'
 import { config as appConfig, type Config } from '../../config'
-import { reportOpenStates, type ReportState } from '../../../shared/schemas/reports'
+import { reportOpenStates, type ReportState } from '../../../shared/vocab/reports'
 import { queueReportMail } from '../../mail/report-mail'
 
 const rank: Record<ReportState, number> = {

@@ -2,7 +2,7 @@
 // item; a second report on the same string while that item is open joins it (its own reference still
 // works). When the item closes the reports move on (fixed, not ours, duplicate) with a history row
 // and the fixed e-mail (report-states.ts), so the two never disagree for long.
-import { reportOpenStates, type ReportState } from '../../../shared/schemas/reports'
+import { reportOpenStates, type ReportState } from '../../../shared/vocab/reports'
 import { dueAfter } from '../../../shared/local-time'
 import { closeItems, openItem, ACTIVE } from './items'
 import { catchUpReportMoves, moveReports } from './report-states'

@@ -2,8 +2,8 @@
 // refresh): what to close and what to open, worked out from the string and its active items, then
 // written in a few statements for the lot. And which strings are out of step with their items at all,
 // found by MariaDB, so a refresh touches only those.
-import { stringStatusKind, type QueueKind } from '../../../shared/schemas/queue'
-import type { StringStatus } from '../../../shared/schemas/string-states'
+import { stringStatusKind, type QueueKind } from '../../../shared/vocab/queue'
+import type { StringStatus } from '../../../shared/vocab/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import { jsonColumn, type Db } from '../../db'
 import { plural } from '../../../shared/number-format'

@@ -2,8 +2,8 @@
 // a visit that leaves the string lit, on watch or made safe closes its items (public reports on it
 // included), and lit strings likely to go dark soon get a forecast item.
 // The rule itself is planStringItems (string-items.ts), for one string here and thousands in a refresh.
-import { stringStatusKind } from '../../../shared/schemas/queue'
-import type { StringStatus } from '../../../shared/schemas/string-states'
+import { stringStatusKind } from '../../../shared/vocab/queue'
+import type { StringStatus } from '../../../shared/vocab/string-states'
 import { openItems, type OpenItem } from './items'
 import type { Db } from '../../db'
 import {

@@ -1,7 +1,7 @@
 import { judgeReadings, type Judged } from '../../../shared/test-limits'
 import type { CertificateKind, CertificateReadings, CertificateRecord, DueFilter } from '../../api/safety'
 import { addDays, daysBetween } from '../../dates'
-import { kindsForSubject } from '../../../shared/schemas/certificates'
+import { kindsForSubject } from '../../../shared/vocab/certificates'
 
 export type Result = CertificateRecord['result']
 export type SubjectType = CertificateRecord['subjectType']

@@ -1,7 +1,7 @@
-// The string states and their words are the API's own (shared/schemas/string-states.ts); the client
+// The string states and their words are the API's own (shared/vocab/string-states.ts); the client
 // only names them for its components.
 export {
   statuses as STRING_STATES,
   statusLabel as STATE_WORDS,
   type StringStatus as StringState,
-} from '../../../shared/schemas/string-states'
+} from '../../../shared/vocab/string-states'

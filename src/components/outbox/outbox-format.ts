@@ -1,6 +1,6 @@
 // Words for outbox entries: what each is, and where it stands.
-import { isolationSteps } from '../../../shared/schemas/visits'
-import { emergencyOutcomeLabel } from '../../../shared/schemas/report-work'
+import { isolationSteps } from '../../../shared/vocab/visits'
+import { emergencyOutcomeLabel } from '../../../shared/vocab/report-work'
 import type { OutboxEntry } from '../../offline/outbox-types'
 import { formatDate, isToday } from '../../dates'
 import type { SeasonRecord } from '../../offline/season-record'

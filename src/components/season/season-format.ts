@@ -1,6 +1,7 @@
 // Words and marks for the season: each state with its own icon beside its word (never colour alone),
 // the electrical caution where tests are taken, and the readings form turned into the API's body.
-import { seasonStateLabel, type SeasonState, type TestReadings } from '../../../shared/schemas/season'
+import type { TestReadings } from '../../../shared/schemas/season'
+import { seasonStateLabel, type SeasonState } from '../../../shared/vocab/season'
 import { iconDepot, iconDone, iconDown, iconSeason, iconWarning } from '../../icons'
 
 export const seasonIcon: Record<SeasonState, string> = {

@@ -1,10 +1,6 @@
 // The visit form as typed, and how it becomes the isolation and visit requests. Pure: no Vue, no I/O.
-import {
-  isolateSteps,
-  restoreSteps,
-  type IsolationBody,
-  type VisitBody,
-} from '../../../shared/schemas/visits'
+import type { IsolationBody, VisitBody } from '../../../shared/schemas/visits'
+import { isolateSteps, restoreSteps } from '../../../shared/vocab/visits'
 import {
   NO_ISOLATION_MESSAGE,
   NO_ISOLATION_MIN,

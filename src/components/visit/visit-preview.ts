@@ -12,9 +12,9 @@ import {
   type LifeSpec,
   stringStatus,
   type Condition,
-  type StringStatus,
   type TypeSpec,
 } from '../../../shared/string-status'
+import type { StringStatus } from '../../../shared/vocab/string-states'
 
 export interface StatePreview {
   status: StringStatus

@@ -1,7 +1,8 @@
 import { computed, onBeforeUnmount, ref, shallowRef, watch } from 'vue'
 import { assess, forecast } from '../../../shared/engine/index'
 import type { AssessRequest, AssessResponse, ForecastResponse } from '../../../shared/schemas/engine'
-import { shuntedLampCount, type StringStatus } from '../../../shared/string-status'
+import { shuntedLampCount } from '../../../shared/string-status'
+import type { StringStatus } from '../../../shared/vocab/string-states'
 import {
   CUSTOM_DEFAULT,
   PRESETS,

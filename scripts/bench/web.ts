@@ -5,7 +5,7 @@
 // /usr/bin/chromium) on the sign-in page, the public report page, the crew's run and the map, the
 // last two signed in through the session cookie. Each page runs RUNS times (default 3) and the run
 // with the median performance score is kept. Exits 1 when any page misses a target.
-// SKIP_BUILD=1 reuses the last build in BENCH_WEB_DIR.
+// SKIP_BUILD=1 reuses the last build in BENCH_WEB_DIR; BENCH_PAGES picks pages by name.
 import './quiet-log'
 import { execFileSync } from 'node:child_process'
 import { loadavg } from 'node:os'
@@ -17,6 +17,8 @@ import { audit, openBrowser, type PageFigures } from './web-lighthouse'
 
 const DIR = resolve(process.env.BENCH_WEB_DIR ?? '.bench-web')
 const RUNS = Math.max(1, Number(process.env.RUNS ?? 3))
+/** BENCH_PAGES=sign-in,map: only the pages whose names contain one of these words. */
+const ONLY = (process.env.BENCH_PAGES ?? '').split(',').filter(Boolean)
 
 /** Targets of issue 14: scores per page, LCP in ms, JavaScript in kB for the two public pages. */
 export const TARGETS = {
@@ -120,7 +122,7 @@ async function main(): Promise<number> {
     server = await startServer(db.url, clientDir)
     const api = `${server.base}/api/v1`
     const rows: { spec: PageSpec; figures: PageFigures }[] = []
-    for (const spec of PAGES) {
+    for (const spec of PAGES.filter((p) => !ONLY.length || ONLY.some((w) => p.name.includes(w)))) {
       // The session cookie (server/middleware/authenticate.ts SESSION_COOKIE), as the browser keeps it.
       const cookie = spec.as ? `lw_session=${await signIn(api, spec.as)}` : null
       const runs: PageFigures[] = []

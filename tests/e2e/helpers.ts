@@ -106,6 +106,34 @@ export async function signIn(page: Page, baseUrl: string, email: string): Promis
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 20_000 })
 }
 
+/** A bearer token for `email`, signed in through the API: for a test's set-up steps, not its subject. */
+export async function apiToken(baseUrl: string, email: string): Promise<string> {
+  const res = await fetch(`${baseUrl}/api/v1/auth/sign-in`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: PASSWORD }),
+  })
+  if (!res.ok) throw new Error(`sign-in as ${email}: ${res.status} ${await res.text()}`)
+  return ((await res.json()) as { token: string }).token
+}
+
+/** One JSON request to the API as the holder of `token`; anything but a 2xx answer throws. */
+export async function apiCall<T>(
+  baseUrl: string,
+  token: string,
+  method: string,
+  path: string,
+  body?: unknown,
+): Promise<T> {
+  const res = await fetch(`${baseUrl}/api/v1${path}`, {
+    method,
+    headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  })
+  if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
+  return (await res.json()) as T
+}
+
 /** A small real JPEG, made on the spot, as a phone camera would hand over. */
 export async function smallJpeg(): Promise<Buffer> {
   const img = new Jimp({ width: 160, height: 120, color: 0xf4a940ff })

@@ -4,9 +4,10 @@
 // outbox), and the report reads Fixed.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import {
+  apiCall,
+  apiToken,
   eventually,
   launchPhone,
-  PASSWORD,
   shot,
   signIn,
   smallJpeg,
@@ -34,23 +35,9 @@ describe('a hazard report reaches the crew and is logged from the stop', () => {
     await app?.close()
   })
 
-  async function token(email: string): Promise<string> {
-    const res = await fetch(`${app.baseUrl}/api/v1/auth/sign-in`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify({ email, password: PASSWORD }),
-    })
-    return ((await res.json()) as { token: string }).token
-  }
-  async function api<T>(auth: string, method: string, path: string, body?: unknown): Promise<T> {
-    const res = await fetch(`${app.baseUrl}/api/v1${path}`, {
-      method,
-      headers: { Authorization: `Bearer ${auth}`, 'Content-Type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
-    return (await res.json()) as T
-  }
+  const token = (email: string) => apiToken(app.baseUrl, email)
+  const api = <T>(token: string, method: string, path: string, body?: unknown) =>
+    apiCall<T>(app.baseUrl, token, method, path, body)
 
   it('shows Emergency, the words, the photo and the caution, and the log closes it', async () => {
     const { page } = phone

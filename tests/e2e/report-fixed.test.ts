@@ -3,7 +3,17 @@
 // crew member sees it under the bell and fixes the string from the run, and the reporter's status page
 // — opened from the link in the acknowledgement e-mail — reads "Fixed".
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { eventually, launchPhone, PASSWORD, shot, signIn, startApp, type E2eApp, type Phone } from './helpers'
+import {
+  apiCall,
+  apiToken,
+  eventually,
+  launchPhone,
+  shot,
+  signIn,
+  startApp,
+  type E2eApp,
+  type Phone,
+} from './helpers'
 
 // The server's "today" (the crew's /run page, GET /runs/mine) is the UTC date.
 const today = new Date().toISOString().slice(0, 10)
@@ -24,15 +34,8 @@ describe('a public report comes back fixed', () => {
     await app?.close()
   })
 
-  async function api<T>(token: string, method: string, path: string, body?: unknown): Promise<T> {
-    const res = await fetch(`${app.baseUrl}/api/v1${path}`, {
-      method,
-      headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
-    return (await res.json()) as T
-  }
+  const api = <T>(token: string, method: string, path: string, body?: unknown) =>
+    apiCall<T>(app.baseUrl, token, method, path, body)
 
   it('is filed, scheduled, fixed from the run, and its status page reads Fixed', async () => {
     const { page } = phone
@@ -151,13 +154,5 @@ describe('a public report comes back fixed', () => {
     expect((await app.db('reports').where({ ref }).first('state')).state).toBe('fixed')
   })
 
-  async function signInApi(email: string): Promise<string> {
-    const res = await fetch(`${app.baseUrl}/api/v1/auth/sign-in`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify({ email, password: PASSWORD }),
-    })
-    expect(res.status).toBe(200)
-    return ((await res.json()) as { token: string }).token
-  }
+  const signInApi = (email: string) => apiToken(app.baseUrl, email)
 })

@@ -2,7 +2,7 @@
 // run shows it: the stop reads "Done" (no longer its ticket's "replace now" with "Log visit" as its
 // main action) and the header's done / left counts move by one.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { launchPhone, PASSWORD, shot, signIn, startApp, type E2eApp, type Phone } from './helpers'
+import { apiCall, apiToken, launchPhone, shot, signIn, startApp, type E2eApp, type Phone } from './helpers'
 
 // The server's "today" (GET /runs/mine without a date) is the UTC date, as in report-fixed.test.ts.
 const today = new Date().toISOString().slice(0, 10)
@@ -20,24 +20,10 @@ describe('a fixed stop reads done on the run', () => {
     await app?.close()
   })
 
-  async function api<T>(token: string, method: string, path: string, body?: unknown): Promise<T> {
-    const res = await fetch(`${app.baseUrl}/api/v1${path}`, {
-      method,
-      headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    })
-    if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`)
-    return (await res.json()) as T
-  }
+  const api = <T>(token: string, method: string, path: string, body?: unknown) =>
+    apiCall<T>(app.baseUrl, token, method, path, body)
 
-  async function token(email: string): Promise<string> {
-    const res = await fetch(`${app.baseUrl}/api/v1/auth/sign-in`, {
-      method: 'POST',
-      headers: { 'Content-Type': 'application/json' },
-      body: JSON.stringify({ email, password: PASSWORD }),
-    })
-    return ((await res.json()) as { token: string }).token
-  }
+  const token = (email: string) => apiToken(app.baseUrl, email)
 
   it('logs a relamp from the run, then the stop reads done and one more is counted done', async () => {
     const { page } = phone

@@ -8,6 +8,7 @@ import knex from 'knex'
 import { knexConfig, parseDatabaseUrl } from '../server/db'
 import { seedDemo } from '../seeds/demo/index'
 import { StartError } from '../server/start-errors'
+import { versionProblem } from './db/server-version'
 
 export interface Database {
   url: string
@@ -56,7 +57,13 @@ async function checkConnection(url: string): Promise<void> {
     ...(parseDatabaseUrl(url) as mysql.ConnectionOptions),
     connectTimeout: 10_000,
   })
-  await c.end()
+  try {
+    const [rows] = await c.query<mysql.RowDataPacket[]>('select version() as v')
+    const problem = versionProblem(String(rows[0].v))
+    if (problem) throw new StartError(problem)
+  } finally {
+    await c.end()
+  }
 }
 
 /**

@@ -36,19 +36,13 @@ const PLACE = {
 // strings row's own columns.
 const PREFIX = 'place'
 const aliased = (name: string) => `${PREFIX}${name[0].toUpperCase()}${name.slice(1)}`
+/** The type stamp's own names (typeId, typeVersion…), as typeStampColumns gives them. */
+const STAMP_NAMES = typeStampColumns('st').map((c) => c.replace(/^.* as /, ''))
 const TYPE_STAMP = typeStampColumns('st').map((c) =>
   c.replace(/ as (\w+)$/, (_m, n: string) => ` as ${aliased(n)}`),
 )
 const ALIASES = new Map(
-  [
-    ...Object.keys(PLACE),
-    'typeId',
-    'typeVersion',
-    'typeCreatedAt',
-    'typeUpdatedAt',
-    'certificates',
-    'visits',
-  ].map((n) => [aliased(n), n]),
+  [...Object.keys(PLACE), ...STAMP_NAMES, 'certificates', 'visits'].map((n) => [aliased(n), n]),
 )
 
 /** Each certificate of the string, its structure or its circuit, newest first, as a JSON list. */

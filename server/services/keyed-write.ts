@@ -3,7 +3,8 @@
 // first. The other send's insert waits for the first to commit, fails with a duplicate entry, and its
 // transaction is run again as a fresh one (a transaction's plain reads see only what was committed
 // before its first read): it then finds the first result and answers with it. Visits, isolations,
-// photos and public reports all go through here.
+// photos and public reports all go through here; visits through their own batched form of it
+// (visits.ts), which shares isDuplicateOn and busyKey.
 import type { Db } from '../db'
 import { conflict } from '../errors'
 
@@ -21,7 +22,8 @@ export interface KeyedWrite<T> {
   create: (trx: Db) => Promise<T>
 }
 
-function isDuplicateOn(err: unknown, index: string): boolean {
+/** A duplicate entry on `index` (MariaDB's error names the index). */
+export function isDuplicateOn(err: unknown, index: string): boolean {
   const e = err as { code?: string; sqlMessage?: string; message?: string }
   return e?.code === 'ER_DUP_ENTRY' && `${e.sqlMessage ?? e.message}`.includes(`'${index}'`)
 }
@@ -30,6 +32,10 @@ function isDuplicateOn(err: unknown, index: string): boolean {
  * Stores a keyed write once: `created` is false when the result is the first send's. Pass the
  * connection pool, not a transaction: the retry needs a fresh transaction to see the first send.
  */
+/** The first send under a key is committed, yet its result was not found: the client tries again. */
+export const busyKey = () =>
+  conflict('idempotency_busy', 'A send with this Idempotency-Key is still being stored; try again.')
+
 export async function writeOnce<T>(db: Db, w: KeyedWrite<T>): Promise<{ created: boolean; result: T }> {
   const attempt = () =>
     db.transaction(async (trx) => {
@@ -47,8 +53,7 @@ export async function writeOnce<T>(db: Db, w: KeyedWrite<T>): Promise<{ created:
     return await attempt()
   } catch (err) {
     // The first send is committed by now, so its result should have been found: answer, not crash.
-    if (isDuplicateOn(err, w.index))
-      throw conflict('idempotency_busy', 'A send with this Idempotency-Key is still being stored; try again.')
+    if (isDuplicateOn(err, w.index)) throw busyKey()
     throw err
   }
 }

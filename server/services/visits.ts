@@ -1,187 +1,199 @@
-import type { Db } from '../db'
-import { badRequest, notFound } from '../errors'
+// Logging a visit: the sends of one moment share a transaction (group-commit.ts), which locks their
+// strings, reads what they need in one statement, checks and plans each send (visit-plan.ts) and
+// stores them together; a key stored already answers with the first visit.
+import { jsonColumn, type Db } from '../db'
+import { HttpError, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
-import { conditionOf, shuntedLampCount, stateColumns, stringStatus } from '../../shared/string-status'
-import { applyVisit, brightLampsError, countErrors, isRelamping, lampTotal } from '../../shared/visit-rules'
-import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
-import { burnHoursPerDay } from '../../shared/schedule'
-import { exposureColumns, type StringRecord } from './string-engine'
-import { requireIsolatedFor } from './isolations'
-import { syncStringQueue, type KnownString } from './queue/strings'
+import { typeStampColumns, type TypeStamp } from './type-cache'
 import { activeItemsColumn, activeItemsOf } from './queue/string-items'
-import { writeOnce } from './keyed-write'
+import { busyKey, isDuplicateOn } from './keyed-write'
+import { groupCommit, type Settled } from './group-commit'
 import { refreshSoon } from './queue/refresh-soon'
-import { consumeFitted } from './stock-consume'
-
-const invalid = (field: string, message: string) =>
-  badRequest('validation_failed', message, { fields: [{ path: `body.${field}`, message }] })
+import {
+  planVisit,
+  storePlans,
+  type Author,
+  type Planned,
+  type StringRow,
+  type VisitContext,
+  type VisitOutcome,
+  type VisitSend,
+} from './visit-plan'
 
 /**
- * What a send needs besides the string, in one statement: the first send's visit under this key (if
- * any), the string's site and client, its active queue items and its type's stamp (type-cache.ts).
- * The transaction's first plain read, made after the string's lock, so its snapshot holds whatever a
+ * Visits in one transaction at most (group-commit.ts), and such transactions at once per process. One
+ * at a time makes the batches big enough to matter (measured with `npm run bench:api`: two at a time
+ * averaged 1.5 visits a batch and gained nothing; one at a time 2–3 visits and about a third more
+ * visits a second). Its cost: a batch that waits for a string's lock (an import holding it) holds up
+ * the process's other visits until it has its lock.
+ */
+const MAX_BATCH = 16
+const MAX_RUNNING = 1
+const KEY_INDEX = 'visits_idempotency_key_unique'
+
+/**
+ * What the sends need besides their strings, in one statement: each string's site, client, type stamp
+ * (type-cache.ts) and active queue items, and the visits already stored under any of the sends' keys.
+ * The transaction's first plain read, made after the strings' locks, so its snapshot holds whatever a
  * first send committed.
  */
-async function visitContext(db: Db, key: string, s: StringRow) {
-  const r = await db('sites as si')
+async function visitContexts(db: Db, ids: number[], keys: string[]) {
+  const rows = await db('strings as s')
+    .join('sites as si', 'si.id', 's.siteId')
     .join('clients as c', 'c.id', 'si.clientId')
-    .join('stringTypes as st', 'st.id', db.raw('?', [s.typeId]))
-    .leftJoin('visits as v', 'v.idempotencyKey', db.raw('?', [key]))
-    .where('si.id', s.siteId)
-    .first(
+    .join('stringTypes as st', 'st.id', 's.typeId')
+    .whereIn('s.id', ids)
+    .select(
+      's.id',
       'si.clientId',
       'c.switchOn',
       'c.switchOff',
-      'v.id as visitId',
-      'v.brightLamps',
       ...typeStampColumns('st'),
-      { items: activeItemsColumn(db, s.id, true) },
+      { items: activeItemsColumn(db, db.ref('s.id'), true) },
+      {
+        earlier: db('visits as v')
+          .whereIn('v.idempotencyKey', keys)
+          .select(db.raw('json_arrayagg(json_array(v.idempotency_key, v.id, v.bright_lamps))')),
+      },
     )
-  if (!r) throw notFound('Site')
-  return {
-    earlier:
-      r.visitId == null ? undefined : { id: r.visitId as number, brightLamps: r.brightLamps as number },
-    site: {
-      clientId: r.clientId as number,
-      switchOn: r.switchOn as string,
-      switchOff: r.switchOff as string,
-    },
-    items: activeItemsOf(s.id, r.items),
-    typeStamp: r as TypeStamp,
-  }
+  const earlier = new Map<string, { id: number; brightLamps: number }>()
+  for (const [key, id, brightLamps] of jsonColumn<[string, number, number][]>(rows[0]?.earlier, []))
+    earlier.set(key, { id, brightLamps })
+  const byString = new Map(
+    rows.map((r) => [
+      r.id as number,
+      {
+        site: {
+          clientId: r.clientId as number,
+          switchOn: r.switchOn as string,
+          switchOff: r.switchOff as string,
+        },
+        items: activeItemsOf(r.id as number, r.items),
+        typeStamp: r as TypeStamp,
+      },
+    ]),
+  )
+  return { earlier, byString }
 }
 
-type VisitContext = Awaited<ReturnType<typeof visitContext>>
-
-/** A strings row as the lock reads it (every column). */
-type StringRow = StringRecord &
-  Omit<KnownString, 'clientId'> & { typeId: number; replaceNow: number | boolean }
-
-interface Author {
-  id: number
-  crewId: number | null
+const settle = async <R>(f: () => Promise<R>) => {
+  try {
+    return { ok: true as const, value: await f() }
+  } catch (error) {
+    // A refused send (4xx) is that send's answer; anything else ends the whole transaction.
+    if (error instanceof HttpError && error.status < 500) return { ok: false as const, error }
+    throw error
+  }
 }
 
 /**
- * Logs a visit. The visit, the string's new counts and flags and its queue items commit together;
- * the same idempotency key again returns the first visit instead of a second one.
+ * Stores a batch of visits on distinct strings with distinct keys in one transaction: each string's
+ * row is locked (in id order, as every batch does, so two batches never deadlock each other), then
+ * each send is checked and planned from the row the lock read, and the writes go together. A key
+ * stored already answers with the first visit instead of a second one.
  */
-export async function logVisit(db: Db, user: Author, key: string, body: VisitBody) {
-  // The row the lock reads is the row the visit works from: read once per attempt, not again.
-  let row: StringRow | undefined
-  let ctx: VisitContext | undefined
-  const { created, result } = await writeOnce(db, {
-    index: 'visits_idempotency_key_unique',
-    // A repeat waits for the first send on the string row, then finds its visit rather than counting
-    // its lamps against the string the first send has already changed.
-    lock: async (trx) => {
-      row = await trx('strings').where({ id: body.stringId }).forUpdate().first()
-      if (!row) throw notFound('String')
-    },
-    // The first send's visit with the string as it is now (the row the lock read).
-    replay: async (trx) => {
-      ctx = await visitContext(trx, key, row!)
-      const s = row!
-      return ctx.earlier
-        ? {
-            ...ctx.earlier,
-            string: { id: s.id, lampsOut: s.lampsOut, status: s.status, replaceNow: !!s.replaceNow },
+async function writeVisits(trx: Db, sends: VisitSend[]): Promise<Settled<VisitOutcome>[]> {
+  const ids = [...new Set(sends.map((s) => s.body.stringId))].sort((a, b) => a - b)
+  const rows = new Map<number, StringRow>(
+    ((await trx('strings').whereIn('id', ids).orderBy('id').forUpdate()) as StringRow[]).map((r) => [
+      r.id,
+      r,
+    ]),
+  )
+  const { earlier, byString } = rows.size
+    ? await visitContexts(
+        trx,
+        [...rows.keys()],
+        sends.map((s) => s.key),
+      )
+    : { earlier: new Map(), byString: new Map<number, VisitContext>() }
+  const now = new Date()
+  const planned: (Planned | null)[] = []
+  const results: Settled<VisitOutcome>[] = []
+  for (const send of sends) {
+    let plan: Planned | null = null
+    results.push(
+      await settle(async () => {
+        const row = rows.get(send.body.stringId)
+        const ctx = byString.get(send.body.stringId)
+        if (!row) throw notFound('String')
+        if (!ctx) throw notFound('Site')
+        const first = earlier.get(send.key)
+        // The first send's visit with the string as it is now (the row the lock read).
+        if (first)
+          return {
+            created: false,
+            visit: {
+              ...first,
+              string: {
+                id: row.id,
+                lampsOut: row.lampsOut,
+                status: row.status,
+                replaceNow: !!row.replaceNow,
+              },
+            },
           }
-        : undefined
-    },
-    create: (trx) => insertVisit(trx, user, key, body, row!, ctx!),
+        plan = await planVisit(trx, send, row, ctx, now)
+        return { created: true, visit: plan.result }
+      }),
+    )
+    planned.push(plan)
+  }
+  const fresh = planned.filter((p): p is Planned => p !== null)
+  if (fresh.length) await storePlans(trx, fresh, now)
+  // The visit ids are known only once inserted.
+  return results.map((r, i) => {
+    const p = planned[i]
+    return r.ok && p ? { ok: true, value: { created: true, visit: { ...p.result, id: p.visitId! } } } : r
   })
-  // The string's new forecast comes from a small refresh soon after; the visit does not wait for it.
-  if (created) refreshSoon()
-  return { created, visit: result }
 }
 
-async function insertVisit(
-  trx: Db,
-  user: Author,
-  key: string,
-  body: VisitBody,
-  s: StringRow,
-  { site, items, typeStamp }: VisitContext,
-) {
-  const type = await typeOf(trx, typeStamp)
-  const counts = countErrors(s.lampsOut, body, shuntedLampCount(type))
-  if (counts.failedFound) throw invalid('failedFound', counts.failedFound)
-  if (counts.replaced) throw invalid('replaced', counts.replaced)
-  const bright = brightLampsError(body.brightLamps ?? 0, lampTotal(type))
-  if (bright) throw invalid('brightLamps', bright)
-  let isolationId: number | null = body.isolationId ?? null
-  if (body.isolationKey) {
-    const iso = await trx('isolations').where({ idempotencyKey: body.isolationKey }).first('id')
-    if (!iso)
-      throw badRequest(
-        'isolation_unknown',
-        'The isolation for this visit has not arrived yet; send it first.',
-      )
-    isolationId = iso.id
+/** One send alone, as a keyed write (keyed-write.ts): a duplicate key is the first send, read again. */
+async function writeOne(db: Db, send: VisitSend): Promise<Settled<VisitOutcome>> {
+  const attempt = async () => (await db.transaction((trx) => writeVisits(trx, [send])))[0]
+  try {
+    return await attempt()
+  } catch (err) {
+    if (!isDuplicateOn(err, KEY_INDEX)) return { ok: false, error: err }
   }
-  if (isolationId) await requireIsolatedFor(trx, isolationId, s.id)
-  else if (isRelamping(body) && !body.noIsolationReason) {
-    throw badRequest(
-      'isolation_required',
-      'Record the isolation steps before relamping, or say why none was needed.',
-    )
+  try {
+    return await attempt()
+  } catch (err) {
+    return { ok: false, error: isDuplicateOn(err, KEY_INDEX) ? busyKey() : err }
   }
-  const cond = applyVisit(conditionOf(s), body)
-  const assessed = stringStatus(type, cond)
-  const { status, replaceNow } = assessed
-  const now = new Date()
-  const [id] = await trx('visits').insert({
-    idempotencyKey: key,
-    stringId: s.id,
-    userId: user.id,
-    crewId: user.crewId,
-    isolationId,
-    noIsolationReason: isolationId ? null : (body.noIsolationReason ?? null),
-    visitedAt: body.visitedAt ? new Date(body.visitedAt) : now,
-    failedFound: body.failedFound,
-    replaced: body.replaced,
-    fuseReplaced: !!body.fuseReplaced,
-    darkOnArrival: !!body.darkOnArrival,
-    brightLamps: body.brightLamps ?? 0,
-    supplyVolts: body.readings?.supplyVolts ?? null,
-    amps: body.readings?.amps ?? null,
-    coldOhms: body.readings?.coldOhms ?? null,
-    notes: body.notes ?? null,
-    lampsOutBefore: s.lampsOut,
-    lampsOutAfter: cond.lampsOut,
-    statusAfter: status,
-    lat: body.lat ?? null,
-    lng: body.lng ?? null,
-  })
-  // The hours burned since the last change count at the ratios then in force, before this visit's change.
-  const state = stateColumns(cond, assessed)
-  await trx('strings')
-    .where({ id: s.id })
-    .update({
-      ...exposureColumns(type, s, burnHoursPerDay(site.switchOn, site.switchOff), now, {
-        fuseReplaced: !!body.fuseReplaced,
-      }),
-      ...state,
-      lastVisitAt: now,
+}
+
+/** A batch in one transaction; if that fails (a key sent twice at once elsewhere, a deadlock), each alone. */
+async function storeBatch(db: Db, sends: VisitSend[]): Promise<Settled<VisitOutcome>[]> {
+  if (sends.length === 1) return [await writeOne(db, sends[0])]
+  try {
+    return await db.transaction((trx) => writeVisits(trx, sends))
+  } catch {
+    const out: Settled<VisitOutcome>[] = []
+    for (const send of sends) out.push(await writeOne(db, send))
+    return out
+  }
+}
+
+const queues = new WeakMap<Db, (send: VisitSend) => Promise<VisitOutcome>>()
+
+/**
+ * Logs a visit. The visit, the string's new counts and flags and its queue items commit together;
+ * the same idempotency key again returns the first visit instead of a second one. Visits sent at the
+ * same moment share a transaction (group-commit.ts); two on one string never do.
+ */
+export async function logVisit(db: Db, user: Author, key: string, body: VisitBody) {
+  let queue = queues.get(db)
+  if (!queue) {
+    queue = groupCommit((sends: VisitSend[]) => storeBatch(db, sends), {
+      maxBatch: MAX_BATCH,
+      maxRunning: MAX_RUNNING,
+      clash: (a, b) => a.body.stringId === b.body.stringId || a.key === b.key,
     })
-  // The queue follows the string as just written: no need to read it back.
-  await syncStringQueue(trx, s.id, id, now, { ...s, ...state, clientId: site.clientId }, items)
-  // What was fitted comes off the crew's van in this same commit (a replay never gets here).
-  await consumeFitted(trx, {
-    visitId: id,
-    userId: user.id,
-    crewId: user.crewId,
-    stringId: s.id,
-    clientId: site.clientId,
-    type,
-    lamps: body.replaced,
-    fuse: !!body.fuseReplaced,
-    at: body.visitedAt ? new Date(body.visitedAt) : now,
-  })
-  return {
-    id: id as number,
-    brightLamps: body.brightLamps ?? 0,
-    string: { id: s.id, lampsOut: cond.lampsOut, status, replaceNow },
+    queues.set(db, queue)
   }
+  const outcome = await queue({ user, key, body })
+  // The string's new forecast comes from a small refresh soon after; the visit does not wait for it.
+  if (outcome.created) refreshSoon()
+  return outcome
 }

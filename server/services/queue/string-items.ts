@@ -6,6 +6,7 @@ import { stringStatusKind, type QueueKind } from '../../../shared/vocab/queue'
 import type { StringStatus } from '../../../shared/vocab/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import { jsonColumn, type Db } from '../../db'
+import type { Knex } from 'knex'
 import { plural } from '../../../shared/number-format'
 import { UP_STATES } from './season'
 
@@ -115,7 +116,12 @@ export async function activeStringItems(db: Db, ids: number[], withReports: bool
  * activeStringItems of one string as a subquery (a JSON list of [id, kind]), so a caller can read
  * them in the same statement as other things; activeItemsOf turns the column back into the list.
  */
-export function activeItemsColumn(db: Db, stringId: number, withReports: boolean) {
+/** A string's active items as one JSON column; `stringId` a number or the outer query's column (db.ref). */
+export function activeItemsColumn(
+  db: Db,
+  stringId: number | Knex.Ref<string, Record<string, string>>,
+  withReports: boolean,
+) {
   return db('queueItems as q')
     .where('q.stringId', stringId)
     .whereIn('q.kind', activeKinds(withReports))

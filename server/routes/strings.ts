@@ -5,12 +5,13 @@ import {
   circuitLoadResult,
   mapList,
   stringDetail,
+  stringForecast,
   tagLookup,
   tagParam,
 } from '../../shared/schemas/strings'
 import { defineRoute, type RouteDef } from '../route-table'
 import { findByTag, listForMap } from '../services/strings'
-import { stringDetailAndRow } from '../services/string-detail'
+import { stringDetailAndRow, wholeForecast } from '../services/string-detail'
 import { READ_ROW } from './estate-row'
 import { circuitLoad } from '../services/circuit-load'
 import { mapView as loadMapView } from '../services/map-view'
@@ -53,7 +54,7 @@ export const stringRoutes: RouteDef[] = [
     path: '/strings/:id',
     access: everyone,
     tag: 'strings',
-    summary: 'One string with its assessment, forecast and history',
+    summary: 'One string with its assessment, lead forecast (72 h chance, likely dark day) and history',
     params: idParam,
     response: stringDetail,
     handler: async ({ deps, params, res }) => {
@@ -62,6 +63,16 @@ export const stringRoutes: RouteDef[] = [
       res.locals[READ_ROW] = row
       return detail
     },
+  }),
+  defineRoute({
+    method: 'get',
+    path: '/strings/:id/forecast',
+    access: everyone,
+    tag: 'strings',
+    summary: "The engine's whole forecast of one string as it is now (failures, chart, chances)",
+    params: idParam,
+    response: stringForecast,
+    handler: ({ deps, params }) => wholeForecast(deps.db, params.id),
   }),
   defineRoute({
     method: 'get',

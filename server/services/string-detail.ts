@@ -1,12 +1,13 @@
 import { jsonColumn, type Db } from '../db'
-import { lineOf } from './strings'
+import { lineOf, type StringType } from './strings'
 import { notFound } from '../errors'
 import type { StringDetail } from '../../shared/schemas/strings'
 import { burnHoursPerDay } from '../../shared/schedule'
 import { photoUrls } from './photo-urls'
 import { typeOf, typeStampColumns, type TypeStamp } from './type-cache'
-import { exposureNow, stringAssessment, stringForecastRequest } from './string-engine'
+import { exposureNow, stringAssessment, stringForecastRequest, type StringRecord } from './string-engine'
 import { cachedForecast } from './forecast-cache'
+import { outlookOf, storedOutlook, type StoredForecast } from './string-outlook'
 import { isoOrNull } from '../../shared/iso-time'
 import { localDay } from '../../shared/local-time'
 import { config } from '../config'
@@ -194,15 +195,9 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
           ],
         }
       : assessed
-  // Kept per process by the engine's input: an unchanged string is not simulated again.
-  const fc = cachedForecast(
-    stringForecastRequest(type, s, {
-      burnHoursPerDay: burn,
-      // The client's own zone (zones.ts), read with the site rather than again.
-      startDate: localDay(now, site.timeZone || config.APP_TIME_ZONE),
-      now,
-    }),
-  )
+  const outlook =
+    storedOutlook(s as unknown as StoredForecast, p.typeUpdatedAt as string | null, burn, zoneOf(p), now) ??
+    outlookOf(forecastNow(type, s, p, now), now)
   // Age and exposure as stored at the last change of state, plus the hours burned since.
   const age = exposureNow(type, s, burn, now)
   const detail: StringDetail = {
@@ -244,8 +239,7 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
       nextDue: c.nextDue ?? null,
     })),
     assessment,
-    forecast: fc,
-    forecastDates: { firstFailure: fc.dates?.failures[0] ?? null, dark: fc.dates?.medianDark ?? null },
+    outlook,
     visits: visits.map(({ photoIds, ...v }) => ({
       ...v,
       fuseReplaced: !!v.fuseReplaced,
@@ -260,4 +254,24 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
 
 export async function stringDetail(db: Db, id: number, now = new Date()): Promise<StringDetail> {
   return (await stringDetailAndRow(db, id, now)).detail
+}
+
+const zoneOf = (p: PlaceRow) => p.timeZone || config.APP_TIME_ZONE
+
+/** The engine's whole forecast of the string as it is now, kept per process by its inputs. */
+function forecastNow(type: StringType, s: Record<string, unknown>, p: PlaceRow, now: Date) {
+  return cachedForecast(
+    stringForecastRequest(type, s as unknown as StringRecord, {
+      burnHoursPerDay: burnHoursPerDay(p.switchOn, p.switchOff),
+      // The client's own zone (zones.ts), read with the site rather than again.
+      startDate: localDay(now, zoneOf(p)),
+      now,
+    }),
+  )
+}
+
+/** GET /strings/{id}/forecast: the chart and table under the page's "How this is worked out". */
+export async function wholeForecast(db: Db, id: number, now = new Date()) {
+  const { row, place } = await readString(db, id)
+  return { forecast: forecastNow(await typeOf(db, place), row, place, now) }
 }

@@ -75,6 +75,23 @@ export const stringTypeSchema = z.object({
 })
 
 /** The string page: record, type, place, circuit, certificates, history and the engine's verdict. */
+/**
+ * The page's lead forecast: the chance of going dark within 72 burning hours and the likely dark day
+ * (the client's local day), from the forecast the queue judges by (`source: 'queue'`) or, when that no
+ * longer fits the string, one the page worked out itself (`'page'`). The whole forecast is
+ * GET /strings/{id}/forecast.
+ */
+export const stringOutlook = z.object({
+  pDark72: z.number().nullable(),
+  darkDate: z.string().nullable(),
+  madeAt: z.string(),
+  source: z.enum(['queue', 'page']),
+})
+export type StringOutlook = z.infer<typeof stringOutlook>
+
+/** GET /strings/{id}/forecast: the engine's whole forecast of the string as it is now. */
+export const stringForecast = z.object({ forecast: z.unknown() })
+
 export const stringDetail = z.object({
   id: z.number(),
   assetTag: z.string(),
@@ -141,8 +158,7 @@ export const stringDetail = z.object({
     }),
   ),
   assessment: z.unknown(),
-  forecast: z.unknown(),
-  forecastDates: z.object({ firstFailure: z.string().nullable(), dark: z.string().nullable() }),
+  outlook: stringOutlook,
   visits: z.array(
     z.object({
       id: z.number(),

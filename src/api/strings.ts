@@ -1,5 +1,12 @@
 import type { z } from 'zod'
-import type { mapItem, mapList, stringDetail, tagLookup, CircuitLoad } from '../../shared/schemas/strings'
+import type {
+  mapItem,
+  mapList,
+  stringDetail,
+  stringForecast,
+  tagLookup,
+  CircuitLoad,
+} from '../../shared/schemas/strings'
 import type { AssessResponse, ForecastResponse } from '../../shared/schemas/engine'
 import { http } from './http'
 
@@ -17,8 +24,10 @@ export type Bbox = [number, number, number, number]
 export function assessmentOf(s: StringDetail): AssessResponse {
   return s.assessment as AssessResponse
 }
-export function forecastOf(s: StringDetail): ForecastResponse {
-  return s.forecast as ForecastResponse
+export type StringForecastAnswer = z.infer<typeof stringForecast>
+/** The engine's whole forecast (GET /strings/{id}/forecast), typed as the engine sends it today. */
+export function forecastOf(a: StringForecastAnswer): ForecastResponse {
+  return a.forecast as ForecastResponse
 }
 
 // Six decimals is about 0.1 m: finer only defeats the server's cache for no gain.
@@ -31,6 +40,8 @@ export const stringsApi = {
   byTag: (tag: string) => http.get<TagLookup>(`/strings/by-tag/${encodeURIComponent(tag)}`),
   get: (id: number | string, signal?: AbortSignal) =>
     http.get<StringDetail>(`/strings/${encodeURIComponent(String(id))}`, undefined, signal),
+  forecast: (id: number | string) =>
+    http.get<StringForecastAnswer>(`/strings/${encodeURIComponent(String(id))}/forecast`),
   circuitLoad: (circuitId: number) => http.get<CircuitLoad>(`/circuits/${circuitId}/load`),
 }
 

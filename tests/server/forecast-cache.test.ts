@@ -1,5 +1,6 @@
-// The string page's forecast is kept per process by the engine's input (issue 13 part 7): reading an
-// unchanged string again runs no second simulation; a visit changes the string's state, so its key.
+// The string's whole forecast (GET /strings/{id}/forecast, under the page's "How this is worked out")
+// is kept per process by the engine's input (issue 13 part 7): reading an unchanged string again runs no
+// second simulation; a visit changes the string's state, so its key.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { randomUUID } from 'node:crypto'
@@ -29,15 +30,17 @@ beforeAll(async () => {
 })
 afterAll(() => t.close())
 
-const detail = () => request(t.app).get(`/api/v1/strings/${stringId}`).set('Authorization', crew)
+const forecastOf = (id: number) =>
+  request(t.app).get(`/api/v1/strings/${id}/forecast`).set('Authorization', crew)
 
 describe('the forecast cache', () => {
   it('simulates an unchanged string once, and again after a visit changes it', async () => {
     clearForecastCache()
-    const first = await detail()
+    const first = await forecastOf(stringId)
     expect(first.status).toBe(200)
+    const before = await t.db('strings').where({ id: stringId }).first('lampsOut')
     expect(forecastCacheStats()).toMatchObject({ misses: 1, hits: 0 })
-    const second = await detail()
+    const second = await forecastOf(stringId)
     expect(forecastCacheStats()).toMatchObject({ misses: 1, hits: 1 })
     expect(second.body.forecast).toEqual(first.body.forecast)
 
@@ -47,8 +50,10 @@ describe('the forecast cache', () => {
       .set('Idempotency-Key', randomUUID())
       .send({ stringId, failedFound: 1, replaced: 0, notes: 'One out by the bank.' })
     expect(visit.status).toBe(201)
-    const third = await detail()
-    expect(third.body.lampsOut).toBe(first.body.lampsOut + 1)
+    const third = await forecastOf(stringId)
+    expect(third.status).toBe(200)
+    const after = await t.db('strings').where({ id: stringId }).first('lampsOut')
+    expect(after.lampsOut).toBe(before.lampsOut + 1)
     // A new state is a new key: simulated again, not the old answer.
     expect(forecastCacheStats()).toMatchObject({ misses: 2, hits: 1 })
   })
@@ -85,8 +90,8 @@ describe('the forecast cache', () => {
         exposureAt: s.exposureAt,
       })
     clearForecastCache()
-    const a = await detail()
-    const b = await request(t.app).get(`/api/v1/strings/${other.id}`).set('Authorization', crew)
+    const a = await forecastOf(stringId)
+    const b = await forecastOf(other.id)
     expect(b.status).toBe(200)
     expect(forecastCacheStats()).toMatchObject({ misses: 1, hits: 1 })
     expect(b.body.forecast).toEqual(a.body.forecast)

@@ -154,11 +154,17 @@ describe('GET /strings', () => {
     expect(bad.body.error.code).toBe('validation_failed')
   })
 
-  it('includes the assessment and forecast in a string page', async () => {
+  it('includes the assessment and lead forecast in a string page, the whole forecast on its own route', async () => {
     const res = await request(t.app).get(`/api/v1/strings/${stringId}`).set('Authorization', crew)
     expect(res.status).toBe(200)
     expect(res.body.assessment.classes).toHaveLength(2)
-    expect(res.body.forecast.meanHoursToFailure.length).toBeGreaterThan(0)
+    expect(res.body.outlook).toMatchObject({ source: expect.stringMatching(/^(queue|page)$/) })
+    expect(res.body).not.toHaveProperty('forecast')
+    const whole = await request(t.app).get(`/api/v1/strings/${stringId}/forecast`).set('Authorization', crew)
+    expect(whole.status).toBe(200)
+    expect(whole.body.forecast.meanHoursToFailure.length).toBeGreaterThan(0)
+    const none = await request(t.app).get('/api/v1/strings/99999999/forecast').set('Authorization', crew)
+    expect(none.status).toBe(404)
     expect(res.body.schedule.burnHoursPerDay).toBe(7) // 16:00–23:00 in the demo contract
   })
 })

@@ -5,7 +5,6 @@
 // at once; a failed fuse lamp, a lamp failed open or out of its socket, or no supply puts a series
 // string out.
 import type { StringDetail } from '../../api/strings'
-import { forecastOf } from '../../api/strings'
 import { lampsOutWords } from '../common/lamps-out-words'
 import { lampTotal } from '../../../shared/visit-rules'
 import { formatDate } from '../../dates'
@@ -51,20 +50,20 @@ export function lampsToCarry(s: StringDetail): { value: string; note: string } {
 
 /** The three numbers, each with the line that says where it comes from. */
 export function actionNumbers(s: StringDetail): ActionNumber[] {
-  const f = forecastOf(s)
+  const o = s.outlook
   const perNight = s.schedule.burnHoursPerDay
-  // The forecast's 72-burning-hour chance: the same horizon the queue opens a "may go dark" item on.
-  const at72 = f?.pDark?.find((d) => d.hours === 72)
+  // The forecast's 72-burning-hour chance: the same horizon the queue opens a "may go dark" item on,
+  // read from the same forecast the queue judges by while it still fits the string.
   const nights = perNight > 0 ? Math.round(72 / perNight) : null
-  const darkDate = f?.dates?.medianDark ?? s.forecastDates.dark
+  const darkDate = o.darkDate
   const risk =
     s.status === 'dark' || s.isolated
       ? { value: '—', note: s.isolated ? 'Made safe: switched off.' : 'It is dark now.' }
       : s.riskNote
         ? { value: s.riskNote.match(/\d+\s?%/)?.[0] ?? '—', note: sentence(s.riskNote) }
-        : at72
+        : o.pDark72 !== null
           ? {
-              value: chanceText(at72.p),
+              value: chanceText(o.pDark72),
               note:
                 `Within ${nights ? `about ${plural(nights, 'night')} (72 burning hours)` : '72 burning hours'}` +
                 (darkDate ? `; most likely dark around ${formatDate(darkDate, 'dayMonth')}.` : '.'),

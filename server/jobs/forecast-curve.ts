@@ -15,6 +15,9 @@ export type CurvePoint = [number, number]
 /** The longest a stored forecast is read before it is made again (wall-clock hours). */
 export const MAX_FORECAST_AGE_HOURS = 24
 
+/** Trials of a stored forecast: fewer than the string page's; enough for a queue threshold, fast for a town. */
+export const JOB_TRIALS = 400
+
 // Every hour to 4 nights (the 72 h item and a day's ageing), every 6 h to two weeks, then daily to
 // 60 days of burning: patrols further out than that are read from a forecast made for their window.
 export const CURVE_HOURS: readonly number[] = [

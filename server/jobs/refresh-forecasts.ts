@@ -22,13 +22,12 @@ import {
   compressCurve,
   curveRequestHours,
   shareDarkBy,
+  JOB_TRIALS,
   MAX_FORECAST_AGE_HOURS,
 } from './forecast-curve'
 import { forecastCandidates, judged, type Candidate } from './forecast-candidates'
 import { updateById } from '../services/update-by-id'
 
-/** Fewer trials than the string page: enough for a queue threshold, fast for a whole town. */
-const JOB_TRIALS = 400
 const BATCH = 200
 
 export interface RefreshOptions {

@@ -8,7 +8,13 @@
 import type { ForecastResponse } from '../../shared/schemas/engine-forecast'
 import type { StringOutlook } from '../../shared/schemas/strings'
 import { localDay } from '../../shared/local-time'
-import { chanceDarkWithin, curveAge, MAX_FORECAST_AGE_HOURS, parseCurve } from '../jobs/forecast-curve'
+import {
+  chanceDarkWithin,
+  curveAge,
+  JOB_TRIALS,
+  MAX_FORECAST_AGE_HOURS,
+  parseCurve,
+} from '../jobs/forecast-curve'
 
 /** The horizon of the page's lead chance: the queue's "may go dark" item reads the same. */
 export const OUTLOOK_HOURS = 72
@@ -46,6 +52,7 @@ export function storedOutlook(
     pDark72: p,
     darkDate: Number.isFinite(dark) ? localDay(dark, zone) : null,
     madeAt: new Date(madeAt).toISOString(),
+    trials: JOB_TRIALS,
     source: 'queue',
   }
 }
@@ -56,6 +63,7 @@ export function outlookOf(fc: ForecastResponse, now: Date): StringOutlook {
     pDark72: fc.pDark.find((d) => d.hours === OUTLOOK_HOURS)?.p ?? null,
     darkDate: fc.dates?.medianDark ?? null,
     madeAt: now.toISOString(),
+    trials: fc.trials,
     source: 'page',
   }
 }

@@ -85,6 +85,8 @@ export const stringOutlook = z.object({
   pDark72: z.number().nullable(),
   darkDate: z.string().nullable(),
   madeAt: z.string(),
+  /** Simulated runs behind it (the queue's forecast uses fewer than the page's whole one). */
+  trials: z.number(),
   source: z.enum(['queue', 'page']),
 })
 export type StringOutlook = z.infer<typeof stringOutlook>

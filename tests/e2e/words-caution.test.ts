@@ -66,6 +66,8 @@ describe('string page words', () => {
     const product = n(m![1]) * n(m![2]) * (m![3] ? n(m![3]) : 1)
     expect(Math.abs(product - n(m![4]))).toBeLessThan(0.2)
     await page.getByTestId('class-table').waitFor()
+    // The whole forecast is fetched once the working is open (GET /strings/{id}/forecast).
+    await page.getByText('simulated runs of this string').waitFor({ timeout: 20_000 })
     await shot(page, 'words-string-lit')
   })
 

@@ -196,7 +196,7 @@ export async function stringDetailAndRow(db: Db, id: number, now = new Date()) {
         }
       : assessed
   const outlook =
-    storedOutlook(s as unknown as StoredForecast, p.typeUpdatedAt as string | null, burn, zoneOf(p), now) ??
+    storedOutlook(s as unknown as StoredForecast, burn, zoneOf(p), now) ??
     outlookOf(forecastNow(type, s, p, now), now)
   // Age and exposure as stored at the last change of state, plus the hours burned since.
   const age = exposureNow(type, s, burn, now)

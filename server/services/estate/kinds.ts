@@ -7,6 +7,7 @@ import { estateKinds, type EstateKind } from '../../../shared/schemas/estate'
 import type { Db } from '../../db'
 import { syncStringQueue } from '../queue/strings'
 import { vanOf } from '../stock-places'
+import { refreshSoon } from '../queue/refresh-soon'
 import {
   accrueExposure,
   loadLampClasses,
@@ -114,7 +115,11 @@ export const kindDefs: KindDef[] = [
     beforeUpdate: async (trx, id, body) => {
       if (STRESS_FIELDS.some((f) => body[f] !== undefined)) await accrueExposure(trx, { typeId: id })
     },
-    afterUpdate: async (trx, id) => ({ restated: await restateStrings(trx, { typeId: id }) }),
+    // Its strings' stored forecasts are made again soon (the string page reads its lead from them).
+    afterUpdate: async (trx, id) => {
+      refreshSoon()
+      return { restated: await restateStrings(trx, { typeId: id }) }
+    },
   }),
   def('strings', {
     table: 'strings',
@@ -130,8 +135,10 @@ export const kindDefs: KindDef[] = [
     beforeUpdate: async (trx, id, body) => {
       if (body.typeId !== undefined) await accrueExposure(trx, { id })
     },
-    afterUpdate: async (trx, id, changed) =>
-      'typeId' in changed ? { restated: await restateStrings(trx, { id }) } : {},
+    afterUpdate: async (trx, id, changed) => {
+      refreshSoon()
+      return 'typeId' in changed ? { restated: await restateStrings(trx, { id }) } : {}
+    },
     afterArchive: async (trx, id) => syncStringQueue(trx, id, null),
   }),
   def('crews', {

@@ -54,3 +54,20 @@ export async function makeTestApp(env: Record<string, string> = {}): Promise<Tes
     },
   }
 }
+
+/**
+ * Lit 20-lamp filament catenaries (type CAT-F20: 19 shunted lamps and a fuse lamp) of the demo town,
+ * lowest id first, `skip` passed over; `noneOut` only those with no lamp out.
+ */
+export async function litCatenaries(db: Db, n: number, o: { skip?: number; noneOut?: boolean } = {}) {
+  const rows = await db('strings as s')
+    .join('stringTypes as ty', 'ty.id', 's.typeId')
+    .where({ 'ty.code': 'CAT-F20', 's.status': 'lit', ...(o.noneOut ? { 's.lampsOut': 0 } : {}) })
+    .whereNull('s.archivedAt')
+    .orderBy('s.id')
+    .offset(o.skip ?? 0)
+    .limit(n)
+    .select('s.id')
+  if (rows.length < n) throw new Error(`the demo town has fewer than ${n} lit CAT-F20 strings left`)
+  return rows.map((r) => r.id as number)
+}

@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { randomUUID } from 'node:crypto'
-import { makeTestApp, type TestApp } from './helpers'
+import { litCatenaries, makeTestApp, type TestApp } from './helpers'
 import { refreshForecasts } from '../../server/jobs/refresh-forecasts'
 import { clearForecastCache, forecastCacheStats } from '../../server/services/forecast-cache'
 import { storedOutlook } from '../../server/services/string-outlook'
@@ -17,14 +17,7 @@ let stringId: number
 beforeAll(async () => {
   t = await makeTestApp()
   crew = `Bearer ${await t.token('crew')}`
-  // A lit 20-lamp filament catenary (19 shunted + fuse lamp) from the demo town.
-  const s = await t
-    .db('strings as s')
-    .join('stringTypes as ty', 'ty.id', 's.typeId')
-    .where({ 'ty.code': 'CAT-F20', 's.status': 'lit' })
-    .orderBy('s.id')
-    .first('s.id')
-  stringId = s.id
+  ;[stringId] = await litCatenaries(t.db, 1)
 })
 afterAll(() => t.close())
 

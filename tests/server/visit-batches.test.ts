@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { randomUUID } from 'node:crypto'
-import { makeTestApp, type TestApp } from './helpers'
+import { litCatenaries, makeTestApp, type TestApp } from './helpers'
 
 let t: TestApp
 let crew: string
@@ -17,24 +17,12 @@ afterAll(() => t.close())
 const send = (body: object, key = randomUUID()) =>
   request(t.app).post('/api/v1/visits').set('Authorization', crew).set('Idempotency-Key', key).send(body)
 
-/** Lit 20-lamp filament catenaries (19 shunted + fuse lamp) of the demo town, with no lamp out. */
-async function litCatenaries(n: number, skip = 0): Promise<number[]> {
-  const rows = await t
-    .db('strings as s')
-    .join('stringTypes as ty', 'ty.id', 's.typeId')
-    .where({ 'ty.code': 'CAT-F20', 's.status': 'lit', 's.lampsOut': 0 })
-    .whereNull('s.archivedAt')
-    .orderBy('s.id')
-    .offset(skip)
-    .limit(n)
-    .select('s.id')
-  expect(rows).toHaveLength(n)
-  return rows.map((r) => r.id as number)
-}
+/** Lit CAT-F20 catenaries with no lamp out (helpers.ts). */
+const catenaries = (n: number, skip = 0) => litCatenaries(t.db, n, { skip, noneOut: true })
 
 describe('visits sent at the same moment', () => {
   it('answer each send on its own, share transactions, and a refused send leaves the others stored', async () => {
-    const ids = await litCatenaries(8)
+    const ids = await catenaries(8)
     let begins = 0
     const count = (q: { sql: string }) => {
       if (/^begin/i.test(q.sql)) begins++
@@ -60,7 +48,7 @@ describe('visits sent at the same moment', () => {
   })
 
   it('count two sends on one string one after the other', async () => {
-    const [stringId] = await litCatenaries(1, 8)
+    const [stringId] = await catenaries(1, 8)
     const answers = await Promise.all([
       send({ stringId, failedFound: 1, replaced: 0 }),
       send({ stringId, failedFound: 1, replaced: 0 }),
@@ -81,7 +69,7 @@ describe('visits sent at the same moment', () => {
   })
 
   it('store a key sent twice at once only once, and answer both with that visit', async () => {
-    const [stringId] = await litCatenaries(1, 9)
+    const [stringId] = await catenaries(1, 9)
     const key = randomUUID()
     const body = { stringId, failedFound: 1, replaced: 0 }
     const answers = await Promise.all([send(body, key), send(body, key)])

@@ -2,9 +2,9 @@
 // the key; that index, not a read before the insert, decides which of two simultaneous sends is the
 // first. The other send's insert waits for the first to commit, fails with a duplicate entry, and its
 // transaction is run again as a fresh one (a transaction's plain reads see only what was committed
-// before its first read): it then finds the first result and answers with it. Visits, isolations,
-// photos and public reports all go through here; visits through their own batched form of it
-// (visits.ts), which shares isDuplicateOn and busyKey.
+// before its first read): it then finds the first result and answers with it. Isolations, photos and
+// public reports go through writeOnce; visits, batched (visits.ts), through retryOnDuplicate, the same
+// rule around their own transaction.
 import type { Db } from '../db'
 import { conflict } from '../errors'
 
@@ -22,38 +22,43 @@ export interface KeyedWrite<T> {
   create: (trx: Db) => Promise<T>
 }
 
-/** A duplicate entry on `index` (MariaDB's error names the index). */
-export function isDuplicateOn(err: unknown, index: string): boolean {
+function isDuplicateOn(err: unknown, index: string): boolean {
   const e = err as { code?: string; sqlMessage?: string; message?: string }
   return e?.code === 'ER_DUP_ENTRY' && `${e.sqlMessage ?? e.message}`.includes(`'${index}'`)
+}
+
+/**
+ * The keyed-write rule around any transaction that inserts under the key: a duplicate on `index` runs
+ * `attempt` once more as a fresh transaction, which then finds the first send's result. Pass an
+ * attempt that opens its own transaction on the pool.
+ */
+export async function retryOnDuplicate<T>(index: string, attempt: () => Promise<T>): Promise<T> {
+  try {
+    return await attempt()
+  } catch (err) {
+    if (!isDuplicateOn(err, index)) throw err
+  }
+  try {
+    return await attempt()
+  } catch (err) {
+    // The first send is committed by now, so its result should have been found: answer, not crash.
+    if (isDuplicateOn(err, index))
+      throw conflict('idempotency_busy', 'A send with this Idempotency-Key is still being stored; try again.')
+    throw err
+  }
 }
 
 /**
  * Stores a keyed write once: `created` is false when the result is the first send's. Pass the
  * connection pool, not a transaction: the retry needs a fresh transaction to see the first send.
  */
-/** The first send under a key is committed, yet its result was not found: the client tries again. */
-export const busyKey = () =>
-  conflict('idempotency_busy', 'A send with this Idempotency-Key is still being stored; try again.')
-
 export async function writeOnce<T>(db: Db, w: KeyedWrite<T>): Promise<{ created: boolean; result: T }> {
-  const attempt = () =>
+  return retryOnDuplicate(w.index, () =>
     db.transaction(async (trx) => {
       if (w.lock) await w.lock(trx)
       const earlier = await w.replay(trx)
       if (earlier !== undefined) return { created: false, result: earlier }
       return { created: true, result: await w.create(trx) }
-    })
-  try {
-    return await attempt()
-  } catch (err) {
-    if (!isDuplicateOn(err, w.index)) throw err
-  }
-  try {
-    return await attempt()
-  } catch (err) {
-    // The first send is committed by now, so its result should have been found: answer, not crash.
-    if (isDuplicateOn(err, w.index)) throw busyKey()
-    throw err
-  }
+    }),
+  )
 }

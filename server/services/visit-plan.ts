@@ -56,8 +56,8 @@ export interface Planned {
   known: KnownString
   items: ActiveItem[]
   fitting: Omit<Parameters<typeof consumeFitted>[1], 'visitId'>
-  result: VisitOutcome['visit']
-  visitId?: number
+  /** The answer, but for the visit's id (known once inserted). */
+  result: Omit<VisitOutcome['visit'], 'id'>
 }
 
 /** Checks one send against its string (refusing with a 4xx) and works out what it writes; reads only. */
@@ -143,7 +143,6 @@ export async function planVisit(
       at: visitedAt,
     },
     result: {
-      id: 0,
       brightLamps: body.brightLamps ?? 0,
       string: { id: s.id, lampsOut: cond.lampsOut, status, replaceNow },
     },
@@ -152,9 +151,9 @@ export async function planVisit(
 
 /**
  * The batch's writes: its visits in one insert, its strings in one update, then each string's queue
- * items and its van's stock.
+ * items and its van's stock. Answers each new visit's id by its key.
  */
-export async function storePlans(trx: Db, plans: Planned[], now: Date) {
+export async function storePlans(trx: Db, plans: Planned[], now: Date): Promise<Map<string, number>> {
   const insert = trx('visits')
     .insert(plans.map((p) => p.visit))
     .toSQL()
@@ -175,9 +174,9 @@ export async function storePlans(trx: Db, plans: Planned[], now: Date) {
   for (const p of plans) {
     const visitId = ids.get(p.send.key)
     if (visitId === undefined) throw new Error(`visit ${p.send.key} was not stored`)
-    p.visitId = visitId
     await syncStringQueue(trx, p.known.id, visitId, now, p.known, p.items)
     // What was fitted comes off the crew's van in this same commit (a replay never gets here).
     await consumeFitted(trx, { ...p.fitting, visitId })
   }
+  return ids
 }

@@ -6,7 +6,7 @@ import { HttpError, notFound } from '../errors'
 import type { VisitBody } from '../../shared/schemas/visits'
 import { typeStampColumns, type TypeStamp } from './type-cache'
 import { activeItemsColumn, activeItemsOf } from './queue/string-items'
-import { busyKey, isDuplicateOn } from './keyed-write'
+import { retryOnDuplicate } from './keyed-write'
 import { groupCommit, type Settled } from './group-commit'
 import { refreshSoon } from './queue/refresh-soon'
 import {
@@ -15,7 +15,6 @@ import {
   type Author,
   type Planned,
   type StringRow,
-  type VisitContext,
   type VisitOutcome,
   type VisitSend,
 } from './visit-plan'
@@ -49,7 +48,7 @@ async function visitContexts(db: Db, ids: number[], keys: string[]) {
       'c.switchOn',
       'c.switchOff',
       ...typeStampColumns('st'),
-      { items: activeItemsColumn(db, db.ref('s.id'), true) },
+      { items: activeItemsColumn(db, 's.id', true) },
       {
         earlier: db('visits as v')
           .whereIn('v.idempotencyKey', keys)
@@ -76,92 +75,76 @@ async function visitContexts(db: Db, ids: number[], keys: string[]) {
   return { earlier, byString }
 }
 
-const settle = async <R>(f: () => Promise<R>) => {
+/** A refused send (4xx) is that send's answer; anything else ends the whole transaction. */
+async function settle<R>(f: () => Promise<R>): Promise<Settled<R>> {
   try {
-    return { ok: true as const, value: await f() }
+    return { ok: true, value: await f() }
   } catch (error) {
-    // A refused send (4xx) is that send's answer; anything else ends the whole transaction.
-    if (error instanceof HttpError && error.status < 500) return { ok: false as const, error }
+    if (error instanceof HttpError && error.status < 500) return { ok: false, error }
     throw error
   }
 }
 
+/** A send checked: the first send's visit again (its key is stored), or the visit to store. */
+type Checked = { replay: VisitOutcome } | { plan: Planned }
+
 /**
  * Stores a batch of visits on distinct strings with distinct keys in one transaction: each string's
- * row is locked (in id order, as every batch does, so two batches never deadlock each other), then
- * each send is checked and planned from the row the lock read, and the writes go together. A key
+ * row is locked (read in id order, as every batch does, so two batches never deadlock each other),
+ * then each send is checked and planned from the row the lock read, and the writes go together. A key
  * stored already answers with the first visit instead of a second one.
  */
 async function writeVisits(trx: Db, sends: VisitSend[]): Promise<Settled<VisitOutcome>[]> {
-  const ids = [...new Set(sends.map((s) => s.body.stringId))].sort((a, b) => a - b)
-  const rows = new Map<number, StringRow>(
-    ((await trx('strings').whereIn('id', ids).orderBy('id').forUpdate()) as StringRow[]).map((r) => [
-      r.id,
-      r,
-    ]),
+  const locked = (await trx('strings')
+    .whereIn(
+      'id',
+      sends.map((s) => s.body.stringId),
+    )
+    .orderBy('id')
+    .forUpdate()) as StringRow[]
+  const rows = new Map(locked.map((r) => [r.id, r]))
+  const { earlier, byString } = await visitContexts(
+    trx,
+    [...rows.keys()],
+    sends.map((s) => s.key),
   )
-  const { earlier, byString } = rows.size
-    ? await visitContexts(
-        trx,
-        [...rows.keys()],
-        sends.map((s) => s.key),
-      )
-    : { earlier: new Map(), byString: new Map<number, VisitContext>() }
   const now = new Date()
-  const planned: (Planned | null)[] = []
-  const results: Settled<VisitOutcome>[] = []
-  for (const send of sends) {
-    let plan: Planned | null = null
-    results.push(
-      await settle(async () => {
+  const checked: Settled<Checked>[] = []
+  for (const send of sends)
+    checked.push(
+      await settle(async (): Promise<Checked> => {
         const row = rows.get(send.body.stringId)
         const ctx = byString.get(send.body.stringId)
         if (!row) throw notFound('String')
         if (!ctx) throw notFound('Site')
         const first = earlier.get(send.key)
+        if (!first) return { plan: await planVisit(trx, send, row, ctx, now) }
         // The first send's visit with the string as it is now (the row the lock read).
-        if (first)
-          return {
-            created: false,
-            visit: {
-              ...first,
-              string: {
-                id: row.id,
-                lampsOut: row.lampsOut,
-                status: row.status,
-                replaceNow: !!row.replaceNow,
-              },
-            },
-          }
-        plan = await planVisit(trx, send, row, ctx, now)
-        return { created: true, visit: plan.result }
+        const string = {
+          id: row.id,
+          lampsOut: row.lampsOut,
+          status: row.status,
+          replaceNow: !!row.replaceNow,
+        }
+        return { replay: { created: false, visit: { ...first, string } } }
       }),
     )
-    planned.push(plan)
-  }
-  const fresh = planned.filter((p): p is Planned => p !== null)
-  if (fresh.length) await storePlans(trx, fresh, now)
-  // The visit ids are known only once inserted.
-  return results.map((r, i) => {
-    const p = planned[i]
-    return r.ok && p ? { ok: true, value: { created: true, visit: { ...p.result, id: p.visitId! } } } : r
+  const plans = checked.flatMap((c) => (c.ok && 'plan' in c.value ? [c.value.plan] : []))
+  const ids = plans.length ? await storePlans(trx, plans, now) : new Map<string, number>()
+  return checked.map((c) => {
+    if (!c.ok) return c
+    if ('replay' in c.value) return { ok: true, value: c.value.replay }
+    const { send, result } = c.value.plan
+    return { ok: true, value: { created: true, visit: { ...result, id: ids.get(send.key)! } } }
   })
 }
 
-/** One send alone, as a keyed write (keyed-write.ts): a duplicate key is the first send, read again. */
-async function writeOne(db: Db, send: VisitSend): Promise<Settled<VisitOutcome>> {
-  const attempt = async () => (await db.transaction((trx) => writeVisits(trx, [send])))[0]
-  try {
-    return await attempt()
-  } catch (err) {
-    if (!isDuplicateOn(err, KEY_INDEX)) return { ok: false, error: err }
-  }
-  try {
-    return await attempt()
-  } catch (err) {
-    return { ok: false, error: isDuplicateOn(err, KEY_INDEX) ? busyKey() : err }
-  }
-}
+/** One send alone, under the keyed-write rule: a duplicate key is the first send, read again. */
+const writeOne = (db: Db, send: VisitSend): Promise<Settled<VisitOutcome>> =>
+  retryOnDuplicate(KEY_INDEX, () => db.transaction((trx) => writeVisits(trx, [send]))).then(
+    ([settled]) => settled,
+    (error: unknown) => ({ ok: false, error }),
+  )
 
 /** A batch in one transaction; if that fails (a key sent twice at once elsewhere, a deadlock), each alone. */
 async function storeBatch(db: Db, sends: VisitSend[]): Promise<Settled<VisitOutcome>[]> {

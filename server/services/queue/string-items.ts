@@ -6,7 +6,6 @@ import { stringStatusKind, type QueueKind } from '../../../shared/vocab/queue'
 import type { StringStatus } from '../../../shared/vocab/string-states'
 import { closeItems, openItems, ACTIVE, type OpenItem } from './items'
 import { jsonColumn, type Db } from '../../db'
-import type { Knex } from 'knex'
 import { plural } from '../../../shared/number-format'
 import { UP_STATES } from './season'
 
@@ -113,17 +112,13 @@ export async function activeStringItems(db: Db, ids: number[], withReports: bool
 }
 
 /**
- * activeStringItems of one string as a subquery (a JSON list of [id, kind]), so a caller can read
- * them in the same statement as other things; activeItemsOf turns the column back into the list.
+ * activeStringItems of each row of an outer query as a subquery (a JSON list of [id, kind]) on its
+ * string id column (`outerId`, e.g. 's.id'), so a caller reads them in the same statement as other
+ * things; activeItemsOf turns the column back into the list.
  */
-/** A string's active items as one JSON column; `stringId` a number or the outer query's column (db.ref). */
-export function activeItemsColumn(
-  db: Db,
-  stringId: number | Knex.Ref<string, Record<string, string>>,
-  withReports: boolean,
-) {
+export function activeItemsColumn(db: Db, outerId: string, withReports: boolean) {
   return db('queueItems as q')
-    .where('q.stringId', stringId)
+    .where('q.stringId', db.ref(outerId))
     .whereIn('q.kind', activeKinds(withReports))
     .whereIn('q.state', ACTIVE)
     .select(db.raw('json_arrayagg(json_array(q.id, q.kind) order by q.id)'))

@@ -20,6 +20,7 @@ import { setUnauthenticatedHandler } from './api/http'
 import { router } from './router'
 import { preloadFirstData } from './router/first-data'
 import { useAuthStore } from './stores/auth'
+import { warmDateTables } from './dates'
 
 // zod's documented `jitless` switch, set where zod reads it so the entry need not import zod: its
 // test for `new Function` otherwise breaks the CSP (script-src 'self'), a console issue Lighthouse counts.
@@ -50,7 +51,9 @@ const auth = useAuthStore()
 watch(
   () => auth.user !== null,
   (signedIn) => {
-    if (signedIn) void import('./signed-in').then((m) => m.startSignedIn(app))
+    if (!signedIn) return
+    warmDateTables()
+    void import('./signed-in').then((m) => m.startSignedIn(app))
   },
   { immediate: true },
 )

@@ -3,14 +3,17 @@
 // strings in a throw-away database (BENCH_DATA_DIR, default .bench-data; DB_BENCH_PORT, default 3309).
 // Every route below runs in turn in the same run, ROUNDS times (default 2), each for BENCH_SECONDS
 // (default 10) with BENCH_CONNECTIONS (default 10) connections; the health route runs first and last
-// in each round and its mean is the reference rate. The load generator shares the machine with the
-// server and MariaDB, so the load average is printed beside every round.
+// in each round and its mean is the reference rate. Each route starts once the machine is quiet (at
+// most a minute's wait, settle() below): the visits leave a forecast refresh behind them. The load
+// generator shares the machine with the server and MariaDB, so the load average is printed beside
+// every round.
 import { randomUUID } from 'node:crypto'
-import { availableParallelism, loadavg } from 'node:os'
+import { availableParallelism, cpus, loadavg } from 'node:os'
 import autocannon, { type RequestStep } from 'autocannon'
 import { rng } from '../../seeds/demo/geo'
 import { openBenchDatabase, signIn } from './large-estate'
 import { startBenchServer } from './api-server'
+import { REFRESH_SOON_MS } from '../../server/services/queue/refresh-soon'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 10)
@@ -142,6 +145,37 @@ function everyScenario(ids: number[]): Scenario[] {
   ]
 }
 
+/** Share of all cores busy over the next `ms` milliseconds (from the kernel's per-core counters). */
+async function busyShare(ms: number): Promise<number> {
+  const sum = () =>
+    cpus().reduce(
+      (a, c) => {
+        const t = c.times
+        const all = t.user + t.nice + t.sys + t.idle + t.irq
+        return { idle: a.idle + t.idle, all: a.all + all }
+      },
+      { idle: 0, all: 0 },
+    )
+  const a = sum()
+  await new Promise((r) => setTimeout(r, ms))
+  const b = sum()
+  return 1 - (b.idle - a.idle) / Math.max(1, b.all - a.all)
+}
+
+/**
+ * Waits until the machine is quiet before a route's turn: a visit asks for a forecast refresh
+ * REFRESH_SOON_MS later, so the refresh the visit phase's last visits ask for starts after that phase
+ * has ended and runs on the server's worker threads; a route measured meanwhile would be measured
+ * beside it, not beside the health route. Quiet: two seconds in a row under a fifth of the cores
+ * busy, waited for at most a minute.
+ */
+async function settle(): Promise<void> {
+  await new Promise((r) => setTimeout(r, REFRESH_SOON_MS + 1000))
+  const until = Date.now() + 60_000
+  let quiet = 0
+  while (Date.now() < until && quiet < 2) quiet = (await busyShare(1000)) < 0.2 ? quiet + 1 : 0
+}
+
 const ms = (v: number) => (Number.isFinite(v) ? v.toFixed(1) : '—')
 
 /** The issue's targets (issue 13 part 7), judged on one round's rows. */
@@ -200,7 +234,10 @@ try {
     for (let round = 1; round <= ROUNDS; round++) {
       const before = loadavg()
       const rows: Row[] = []
-      for (const s of scenarios(ids)) rows.push(await measure(server.base, s, tokens))
+      for (const s of scenarios(ids)) {
+        await settle()
+        rows.push(await measure(server.base, s, tokens))
+      }
       printRound(round, rows, [before, loadavg()])
     }
   } finally {
